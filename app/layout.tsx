@@ -1,0 +1,21 @@
+import type { Metadata, Viewport } from "next";
+import localFont from "next/font/local";
+import "./globals.css";
+
+const inter = localFont({ src: "./fonts/inter-latin-wght-normal.woff2", variable: "--font-inter", display: "swap" });
+
+export const metadata: Metadata = {
+  title: { default: "Strutwise", template: "%s · Strutwise" },
+  description: "Register, capacity checks and permits for temporary props, struts and shores.",
+  manifest: "/manifest.webmanifest",
+};
+
+export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#1d4f91" };
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en-GB" className={inter.variable}>
+      <body className="min-h-dvh font-sans">{children}</body>
+    </html>
+  );
+}

@@ -1,0 +1,94 @@
+"use client";
+
+import Link from "next/link";
+import { usePathname } from "next/navigation";
+import { useState } from "react";
+import { Icon } from "@/components/icons";
+import type { NavItem } from "@/lib/navigation";
+
+function isActive(pathname: string, href: string, exact: boolean) {
+  return exact ? pathname === href : pathname === href || pathname.startsWith(`${href}/`);
+}
+
+/** Desktop: a column of links. */
+export function SideNav({ items, rootHref }: { items: NavItem[]; rootHref: string }) {
+  const pathname = usePathname();
+  return (
+    <nav aria-label="Main" className="flex flex-col gap-1">
+      {items.map((item) => {
+        const active = isActive(pathname, item.href, item.href === rootHref);
+        return (
+          <Link
+            key={item.href}
+            href={item.href}
+            aria-current={active ? "page" : undefined}
+            className={`flex min-h-touch items-center gap-3 rounded-lg px-3 font-semibold ${
+              active ? "bg-brand text-white" : "text-ink hover:bg-paper-sunk"
+            }`}
+          >
+            <Icon name={item.icon} />
+            {item.label}
+          </Link>
+        );
+      })}
+    </nav>
+  );
+}
+
+/** Phone: a bottom bar with the primary items and a "More" sheet for the rest. */
+export function BottomNav({ items, rootHref }: { items: NavItem[]; rootHref: string }) {
+  const pathname = usePathname();
+  const [open, setOpen] = useState(false);
+  const primary = items.filter((i) => i.primary).slice(0, 4);
+  const rest = items.filter((i) => !primary.includes(i));
+  return (
+    <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 border-t-2 border-ink/20 bg-paper-raised pb-[env(safe-area-inset-bottom)] md:hidden">
+      {open && rest.length > 0 ? (
+        <ul className="border-b border-ink/10 p-2">
+          {rest.map((item) => (
+            <li key={item.href}>
+              <Link
+                href={item.href}
+                onClick={() => setOpen(false)}
+                aria-current={isActive(pathname, item.href, false) ? "page" : undefined}
+                className="flex min-h-touch items-center gap-3 rounded-lg px-3 font-semibold hover:bg-paper-sunk"
+              >
+                <Icon name={item.icon} /> {item.label}
+              </Link>
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      <ul className="flex">
+        {primary.map((item) => {
+          const active = isActive(pathname, item.href, item.href === rootHref);
+          return (
+            <li key={item.href} className="flex-1">
+              <Link
+                href={item.href}
+                aria-current={active ? "page" : undefined}
+                className={`flex min-h-[56px] flex-col items-center justify-center gap-0.5 text-xs font-semibold ${active ? "text-brand" : "text-ink-soft"}`}
+              >
+                <Icon name={item.icon} />
+                {item.label}
+              </Link>
+            </li>
+          );
+        })}
+        {rest.length > 0 ? (
+          <li className="flex-1">
+            <button
+              type="button"
+              aria-expanded={open}
+              onClick={() => setOpen((o) => !o)}
+              className="flex min-h-[56px] w-full flex-col items-center justify-center gap-0.5 text-xs font-semibold text-ink-soft"
+            >
+              <Icon name="more" />
+              More
+            </button>
+          </li>
+        ) : null}
+      </ul>
+    </nav>
+  );
+}

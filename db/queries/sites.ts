@@ -1,0 +1,55 @@
+import "server-only";
+import { and, count, eq } from "drizzle-orm";
+import { db, type DbOrTx } from "@/db";
+import { members, memberships, permits, sites, type SiteRole } from "@/db/schema";
+import type { SessionUser } from "./users";
+
+const siteColumns = {
+  id: sites.id,
+  organisationId: sites.organisationId,
+  name: sites.name,
+  code: sites.code,
+  address: sites.address,
+  timezone: sites.timezone,
+  unitSystem: sites.unitSystem,
+  designCode: sites.designCode,
+  permitValidityHours: sites.permitValidityHours,
+  inspectionIntervalDays: sites.inspectionIntervalDays,
+  plumbToleranceMm: sites.plumbToleranceMm,
+  expiryWarningHours: sites.expiryWarningHours,
+};
+
+export type SiteSummary = Awaited<ReturnType<typeof getSiteAccessRow>>;
+
+/** The site if it belongs to the user's organisation, with the roles the user holds there. */
+export async function getSiteAccessRow({ siteId, user }: { siteId: string; user: SessionUser }, tx: DbOrTx = db) {
+  const [site] = await tx
+    .select(siteColumns)
+    .from(sites)
+    .where(and(eq(sites.id, siteId), eq(sites.organisationId, user.organisationId)))
+    .limit(1);
+  if (!site) return null;
+  const rows = await tx
+    .select({ role: memberships.role })
+    .from(memberships)
+    .where(and(eq(memberships.siteId, siteId), eq(memberships.userId, user.id)));
+  const roles = rows.map((r) => r.role) as SiteRole[];
+  if (user.isOrgAdmin && !roles.includes("admin")) roles.push("admin");
+  return { site, roles };
+}
+
+export async function getSiteCounts({ siteId }: { siteId: string }, tx: DbOrTx = db) {
+  const [memberRows, permitRows] = await Promise.all([
+    tx.select({ status: members.status, n: count() }).from(members).where(eq(members.siteId, siteId)).groupBy(members.status),
+    tx.select({ status: permits.status, n: count() }).from(permits).where(eq(permits.siteId, siteId)).groupBy(permits.status),
+  ]);
+  const [failing] = await tx
+    .select({ n: count() })
+    .from(members)
+    .where(and(eq(members.siteId, siteId), eq(members.checkPass, false)));
+  return {
+    members: Object.fromEntries(memberRows.map((r) => [r.status, r.n])) as Record<string, number>,
+    permits: Object.fromEntries(permitRows.map((r) => [r.status, r.n])) as Record<string, number>,
+    failing: failing?.n ?? 0,
+  };
+}

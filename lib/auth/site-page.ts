@@ -1,0 +1,19 @@
+// Page-side access: not signed in → sign-in; not found or not yours → 404 page.
+import "server-only";
+import { cache } from "react";
+import { notFound } from "next/navigation";
+import { getSiteAccess } from "@/lib/authz";
+import { NotFoundError } from "@/lib/errors";
+import { rolesAllowPure, type PermissionName } from "@/lib/permissions";
+import { requireUser } from "./index";
+
+export const loadSitePage = cache(async (siteId: string) => {
+  const user = await requireUser(`/sites/${siteId}`);
+  try {
+    const access = await getSiteAccess(user, siteId);
+    return { user, ...access, may: (p: PermissionName) => rolesAllowPure(access.roles, p) };
+  } catch (e) {
+    if (e instanceof NotFoundError) notFound();
+    throw e;
+  }
+});

@@ -1,0 +1,37 @@
+export { calculate, capacityCurve, type CurvePoint } from "./calculate";
+export { METHODS, methodInfo, type MethodInfo } from "./methods";
+export { ENGINE_VERSION } from "./version";
+export { END_CONDITIONS, effectiveLength, type EndConditionInfo } from "./effective-length";
+export {
+  STEEL_GRADES,
+  TIMBER_CLASSES,
+  KMOD,
+  GAMMA_M_TIMBER,
+  BETA_C,
+  NDS_C,
+  E_STEEL_EN_MPA,
+  E_STEEL_AISC_MPA,
+  findSteelGrade,
+  findTimberClass,
+  type SteelGrade,
+  type TimberClass,
+} from "./materials";
+export { sectionProperties, type SectionProperties } from "./sections";
+export { calculateRakingShore, rakingShoreGeometry, type RakingShoreGeometry, type RakingShoreResult } from "./raking-shore";
+export {
+  calculateSlabLoad,
+  slabLoadPerMember,
+  workingAreaConstructionLoad,
+  type SlabLoadBreakdown,
+  type SlabLoadResult,
+} from "./slab-load";
+// Raw numeric cores (plain numbers in, number out) for charts, batch work and the bench.
+export { eulerLoad } from "./euler";
+export { en1993Chi, en1993BucklingResistance, IMPERFECTION_FACTORS } from "./en1993";
+export { aiscFe, aiscFcr, aiscNominalStrength, PHI_C, OMEGA_C } from "./aisc360";
+export { en1065CharacteristicN, EN1065_CLASS } from "./en1065";
+export { interpolateTable } from "./supplier-table";
+export { en1995Kc, en1995LambdaRel, en1995Resistance } from "./en1995";
+export { ndsCp, ndsFcE, ndsCapacity } from "./nds";
+export { idealBraceCoefficient, app6RequiredStiffness } from "./point-brace";
+export * from "./types";

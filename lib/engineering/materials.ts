@@ -1,0 +1,109 @@
+// Material presets with the clause each number comes from. Values marked
+// "from memory" were recalled from the published table and could not be
+// re-read from the standard while writing this; check them against a copy of
+// the standard before relying on them for anything beyond a preset default.
+
+import type { LoadDuration, ServiceClass, TimberType } from "./types";
+
+/** 1 ksi = 1000 lbf/in² = 1000 × 4.4482216152605 N / 645.16 mm² (exact definitions of lbf and inch). */
+export const KSI_TO_MPA = (1000 * 4.4482216152605) / 645.16;
+
+export const E_STEEL_EN_MPA = 210_000; // EN 1993-1-1 §3.2.6(1)
+export const E_STEEL_AISC_MPA = 200_000; // AISC 360-16 uses E = 29 000 ksi, stated as 200 000 MPa in its SI text
+
+export interface SteelGrade {
+  id: string;
+  label: string;
+  /** Nominal yield strength for the thinnest range the source lists. */
+  fyMpa: number;
+  /** Thickness up to which fyMpa applies, and the value beyond it (EN grades only). */
+  tLimitMm?: number;
+  fyThickMpa?: number;
+  /** Hollow-section yield where it differs from the shaped value (ASTM A500 round vs rectangular). */
+  fyRoundMpa?: number;
+  family: "EN" | "ASTM";
+  source: string;
+}
+
+const EN_TABLE_3_1 = "EN 1993-1-1 Table 3.1 (nominal fy, EN 10025-2 / EN 10210-1 / EN 10219-1)";
+const AISC_TABLE_2_4 = "AISC Steel Construction Manual (15th ed.) Table 2-4 / ASTM specification minimum Fy (from memory)";
+
+export const STEEL_GRADES: readonly SteelGrade[] = [
+  { id: "S235", label: "S235", fyMpa: 235, tLimitMm: 40, fyThickMpa: 215, family: "EN", source: EN_TABLE_3_1 },
+  { id: "S275", label: "S275", fyMpa: 275, tLimitMm: 40, fyThickMpa: 255, family: "EN", source: EN_TABLE_3_1 },
+  { id: "S355", label: "S355", fyMpa: 355, tLimitMm: 40, fyThickMpa: 335, family: "EN", source: EN_TABLE_3_1 },
+  { id: "S420", label: "S420", fyMpa: 420, tLimitMm: 40, fyThickMpa: 390, family: "EN", source: EN_TABLE_3_1 },
+  { id: "S460", label: "S460", fyMpa: 460, tLimitMm: 40, fyThickMpa: 430, family: "EN", source: EN_TABLE_3_1 },
+  { id: "A36", label: "ASTM A36", fyMpa: 36 * KSI_TO_MPA, family: "ASTM", source: AISC_TABLE_2_4 + ": A36 Fy = 36 ksi" },
+  { id: "A992", label: "ASTM A992", fyMpa: 50 * KSI_TO_MPA, family: "ASTM", source: AISC_TABLE_2_4 + ": A992 Fy = 50 ksi" },
+  {
+    id: "A500-B",
+    label: "ASTM A500 Gr. B",
+    fyMpa: 46 * KSI_TO_MPA,
+    fyRoundMpa: 42 * KSI_TO_MPA,
+    family: "ASTM",
+    source: AISC_TABLE_2_4 + ": A500 Gr. B Fy = 46 ksi rectangular, 42 ksi round",
+  },
+  {
+    id: "A500-C",
+    label: "ASTM A500 Gr. C",
+    fyMpa: 50 * KSI_TO_MPA,
+    fyRoundMpa: 46 * KSI_TO_MPA,
+    family: "ASTM",
+    source: AISC_TABLE_2_4 + ": A500 Gr. C Fy = 50 ksi rectangular, 46 ksi round",
+  },
+  { id: "A53-B", label: "ASTM A53 Gr. B pipe", fyMpa: 35 * KSI_TO_MPA, family: "ASTM", source: AISC_TABLE_2_4 + ": A53 Gr. B Fy = 35 ksi" },
+];
+
+export function findSteelGrade(id: string): SteelGrade | undefined {
+  return STEEL_GRADES.find((g) => g.id.toLowerCase() === id.trim().toLowerCase());
+}
+
+export interface TimberClass {
+  id: string;
+  fc0kMpa: number;
+  e005Mpa: number;
+  timberType: TimberType;
+  source: string;
+}
+
+const EN338 = "EN 338:2016 Table 1 (from memory)";
+const EN14080 = "EN 14080:2013 Table 5 (from memory)";
+
+export const TIMBER_CLASSES: readonly TimberClass[] = [
+  { id: "C14", fc0kMpa: 16, e005Mpa: 4700, timberType: "solid", source: EN338 },
+  { id: "C16", fc0kMpa: 17, e005Mpa: 5400, timberType: "solid", source: EN338 },
+  { id: "C18", fc0kMpa: 18, e005Mpa: 6000, timberType: "solid", source: EN338 },
+  { id: "C20", fc0kMpa: 19, e005Mpa: 6400, timberType: "solid", source: EN338 },
+  { id: "C22", fc0kMpa: 20, e005Mpa: 6700, timberType: "solid", source: EN338 },
+  { id: "C24", fc0kMpa: 21, e005Mpa: 7400, timberType: "solid", source: EN338 },
+  { id: "C27", fc0kMpa: 22, e005Mpa: 7700, timberType: "solid", source: EN338 },
+  { id: "C30", fc0kMpa: 24, e005Mpa: 8000, timberType: "solid", source: EN338 },
+  { id: "C35", fc0kMpa: 25, e005Mpa: 8700, timberType: "solid", source: EN338 },
+  { id: "C40", fc0kMpa: 27, e005Mpa: 9400, timberType: "solid", source: EN338 },
+  { id: "C45", fc0kMpa: 29, e005Mpa: 10100, timberType: "solid", source: EN338 },
+  { id: "C50", fc0kMpa: 30, e005Mpa: 10700, timberType: "solid", source: EN338 },
+  { id: "GL24h", fc0kMpa: 24, e005Mpa: 9600, timberType: "glulam", source: EN14080 },
+  { id: "GL28h", fc0kMpa: 28, e005Mpa: 10500, timberType: "glulam", source: EN14080 },
+  { id: "GL32h", fc0kMpa: 32, e005Mpa: 11800, timberType: "glulam", source: EN14080 },
+];
+
+export function findTimberClass(id: string): TimberClass | undefined {
+  return TIMBER_CLASSES.find((c) => c.id.toLowerCase() === id.trim().toLowerCase());
+}
+
+/** EN 1995-1-1 Table 3.1, solid timber, glulam and LVL rows. */
+export const KMOD: Record<ServiceClass, Record<LoadDuration, number>> = {
+  1: { permanent: 0.6, "long-term": 0.7, "medium-term": 0.8, "short-term": 0.9, instantaneous: 1.1 },
+  2: { permanent: 0.6, "long-term": 0.7, "medium-term": 0.8, "short-term": 0.9, instantaneous: 1.1 },
+  3: { permanent: 0.5, "long-term": 0.55, "medium-term": 0.65, "short-term": 0.7, instantaneous: 0.9 },
+};
+
+/** EN 1995-1-1 Table 2.3 recommended γM (a National Annex may set others). */
+export const GAMMA_M_TIMBER: Record<TimberType, number> = { solid: 1.3, round: 1.3, glulam: 1.25, lvl: 1.2 };
+
+/** EN 1995-1-1 §6.3.2 eq. (6.29). */
+export const BETA_C: Record<TimberType, number> = { solid: 0.2, round: 0.2, glulam: 0.1, lvl: 0.1 };
+
+/** NDS 2018 §3.7.1 c: sawn lumber 0.8, round timber poles and piles 0.85, glulam and SCL 0.9. */
+export const NDS_C: Record<TimberType, number> = { solid: 0.8, round: 0.85, glulam: 0.9, lvl: 0.9 };

@@ -1,0 +1,24 @@
+import type { FieldError, Step } from "./types";
+
+export function step(label: string, symbol: string, value: number | string, unit: string, source: string): Step {
+  return { label, symbol, value, unit, source };
+}
+
+/**
+ * Number for a sentence a site engineer reads: at most 4 significant figures,
+ * no exponent for everyday magnitudes, thousands left unseparated so the text
+ * is the same in every locale.
+ */
+export function fmt(n: number): string {
+  if (!Number.isFinite(n)) return String(n);
+  if (n === 0) return "0";
+  const abs = Math.abs(n);
+  if (abs >= 1e9 || abs < 1e-4) return n.toExponential(3).replace(/\.?0+e/, "e");
+  if (abs >= 1000) return String(Math.round(n));
+  const p = Number(n.toPrecision(4));
+  return String(p);
+}
+
+export function fieldError(field: string, message: string): FieldError {
+  return { field, message };
+}

@@ -1,0 +1,124 @@
+// Safe working loads read from a supplier's load table (length → safe load).
+// Between rows the load is interpolated linearly, which is how such tables are
+// normally read; outside the table nothing is extrapolated.
+
+import { fieldError, fmt, step } from "./steps";
+import type { CalculationRequest, FieldError, MethodOutcome, Step, TableRow } from "./types";
+
+/** Fraction of the last row's length within which a warning says the member is at the end of its rated range. */
+export const TABLE_END_MARGIN = 0.02;
+
+/**
+ * Linear interpolation in a sorted table; lengths must be strictly increasing
+ * and `x` inside [lengths[0], lengths[n-1]]. Returns NaN outside, so callers
+ * must range-check first (the wrapper does).
+ */
+export function interpolateTable(lengths: ArrayLike<number>, loads: ArrayLike<number>, x: number): number {
+  const n = lengths.length;
+  if (n < 2 || x < lengths[0] || x > lengths[n - 1]) return Number.NaN;
+  let lo = 0;
+  let hi = n - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (lengths[mid] <= x) lo = mid;
+    else hi = mid;
+  }
+  const x0 = lengths[lo];
+  const x1 = lengths[hi];
+  const t = (x - x0) / (x1 - x0);
+  return loads[lo] + t * (loads[hi] - loads[lo]);
+}
+
+/** Sorts rows by length and checks the rules a table must meet; paths refer to the rows as the user entered them. */
+export function prepareTable(table: TableRow[] | undefined): { ok: true; rows: TableRow[]; sorted: boolean } | { ok: false; errors: FieldError[] } {
+  if (table === undefined) {
+    return { ok: false, errors: [fieldError("table", "Enter the supplier's load table: at least two rows of length (mm) and safe load (N).")] };
+  }
+  if (table.length < 2) {
+    return {
+      ok: false,
+      errors: [fieldError("table", `The supplier table needs at least two rows to read a value between them (got ${table.length}).`)],
+    };
+  }
+  const indexed = table.map((row, i) => ({ row, i }));
+  indexed.sort((a, b) => a.row.lengthMm - b.row.lengthMm);
+  const errors: FieldError[] = [];
+  for (let j = 1; j < indexed.length; j++) {
+    if (indexed[j].row.lengthMm === indexed[j - 1].row.lengthMm) {
+      const first = Math.min(indexed[j].i, indexed[j - 1].i);
+      const second = Math.max(indexed[j].i, indexed[j - 1].i);
+      errors.push(
+        fieldError(
+          `table.${second}.lengthMm`,
+          `Rows ${first + 1} and ${second + 1} both give a length of ${fmt(indexed[j].row.lengthMm)} mm; each length may appear only once.`,
+        ),
+      );
+    }
+  }
+  if (errors.length) return { ok: false, errors };
+  const sorted = indexed.some((e, j) => e.i !== j);
+  return { ok: true, rows: indexed.map((e) => e.row), sorted };
+}
+
+export function runSupplierTable(req: CalculationRequest): MethodOutcome {
+  const prepared = prepareTable(req.table);
+  if (!prepared.ok) return prepared;
+  const rows = prepared.rows;
+  const lengths = rows.map((r) => r.lengthMm);
+  const loads = rows.map((r) => r.safeLoadN);
+  const first = lengths[0];
+  const last = lengths[lengths.length - 1];
+  const l = req.lengthMm;
+  if (l < first || l > last) {
+    return {
+      ok: false,
+      errors: [
+        fieldError(
+          "lengthMm",
+          `Length ${fmt(l)} mm is outside the supplier table, which covers ${fmt(first)}–${fmt(last)} mm; a load table must not be extrapolated. Use a member whose range covers this length.`,
+        ),
+      ],
+    };
+  }
+  const swl = interpolateTable(lengths, loads, l);
+  let hi = lengths.findIndex((x) => x >= l);
+  if (hi <= 0) hi = 1;
+  const lo = hi - 1;
+  const exact = lengths[hi] === l ? hi : lengths[lo] === l ? lo : -1;
+  const steps: Step[] = [
+    step(`Supplier table with ${rows.length} rows${prepared.sorted ? " (sorted by length)" : ""}, range`, "L_min–L_max", `${fmt(first)}–${fmt(last)}`, "mm", "Supplier's load table (user input)"),
+    step("Length used", "L", l, "mm", "User input"),
+  ];
+  if (exact >= 0) {
+    steps.push(step(`Safe load read directly from row at ${fmt(lengths[exact])} mm`, "SWL", swl, "N", "Supplier's load table"));
+  } else {
+    steps.push(step("Row below", "L₁, P₁", `${fmt(lengths[lo])} mm, ${fmt(loads[lo])} N`, "", "Supplier's load table"));
+    steps.push(step("Row above", "L₂, P₂", `${fmt(lengths[hi])} mm, ${fmt(loads[hi])} N`, "", "Supplier's load table"));
+    steps.push(step("Linear interpolation SWL = P₁ + (L − L₁)/(L₂ − L₁)·(P₂ − P₁)", "SWL", swl, "N", "Linear interpolation between table rows"));
+  }
+  const warnings: string[] = [];
+  if (l === first || l === last || last - l <= TABLE_END_MARGIN * last) {
+    warnings.push(
+      `Length ${fmt(l)} mm is at the ${l === first ? "start" : "end"} of the supplier table (${fmt(first)}–${fmt(last)} mm); there is no margin for a slightly longer setting on site.`,
+    );
+  }
+  for (let j = 1; j < rows.length; j++) {
+    if (loads[j] > loads[j - 1]) {
+      warnings.push(
+        `The table's safe load rises from ${fmt(loads[j - 1])} N at ${fmt(lengths[j - 1])} mm to ${fmt(loads[j])} N at ${fmt(lengths[j])} mm; a longer member is normally weaker, so check the table was entered correctly.`,
+      );
+      break;
+    }
+  }
+  if (req.k !== undefined || req.ends !== undefined) warnings.push("End conditions and k are not used: the supplier's table already assumes its own end conditions.");
+  return {
+    ok: true,
+    value: {
+      capacityN: swl,
+      basis: "safe-working-load",
+      loadBasis: "Working (unfactored) load compared with the supplier's safe working load.",
+      steps,
+      warnings,
+    },
+  };
+}

@@ -1,0 +1,41 @@
+// Runs the engine for one member and returns what the register stores as its check.
+import { calculate, ENGINE_VERSION } from "@/lib/engineering";
+import { buildCheckRequest, type CheckMember, type CheckSite, type CheckType } from "./check-request";
+
+export type CheckOutcome = {
+  method: string;
+  inputs: Record<string, unknown>;
+  result: Record<string, unknown>;
+  capacityN: number | null;
+  utilisation: number | null;
+  pass: boolean;
+  engineVersion: string;
+};
+
+export function runCheck(type: CheckType, member: CheckMember, site: CheckSite): CheckOutcome {
+  const { request, basis, loadFactor, loadFactorSource } = buildCheckRequest(type, member, site);
+  const result = calculate(request);
+  const inputs = { ...request, workingLoadN: member.loadN, loadFactor, loadFactorSource, basis };
+  if (!result.ok) {
+    // A member the engine cannot check is not passing: it blocks a permit until it is fixed.
+    return {
+      method: String(request.method),
+      inputs,
+      result: result as unknown as Record<string, unknown>,
+      capacityN: null,
+      utilisation: null,
+      pass: false,
+      engineVersion: ENGINE_VERSION,
+    };
+  }
+  const utilisation = result.utilisation ?? (request.loadN as number) / result.capacityN;
+  return {
+    method: result.method,
+    inputs,
+    result: result as unknown as Record<string, unknown>,
+    capacityN: result.capacityN,
+    utilisation,
+    pass: result.pass ?? utilisation <= 1,
+    engineVersion: ENGINE_VERSION,
+  };
+}

@@ -1,0 +1,36 @@
+import { defineConfig, devices } from "@playwright/test";
+
+const chromium = {
+  executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+  args: [
+    "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update",
+    "--disable-sync", "--no-first-run", "--disable-quic",
+  ],
+};
+
+export default defineConfig({
+  testDir: "tests/e2e",
+  timeout: 60_000,
+  expect: { timeout: 10_000 },
+  fullyParallel: false,
+  workers: 2,
+  retries: 0,
+  reporter: [["list"]],
+  outputDir: ".data/test-results",
+  use: {
+    baseURL: process.env.APP_URL ?? "http://127.0.0.1:3100",
+    trace: "retain-on-failure",
+    screenshot: "only-on-failure",
+    launchOptions: chromium,
+  },
+  projects: [
+    {
+      name: "phone",
+      use: { ...devices["Pixel 7"], browserName: "chromium", launchOptions: chromium },
+    },
+    {
+      name: "desktop",
+      use: { browserName: "chromium", viewport: { width: 1366, height: 850 }, launchOptions: chromium },
+    },
+  ],
+});

@@ -1,0 +1,63 @@
+// `npm test`: prepares a clean test stack (own database, bucket, inbox and ports), then runs
+// vitest (unit + integration against the real services) and Playwright in Debian's Chromium.
+import {
+  profile, ensureNodeModules, ensureChromium, ensurePostgres, ensureDatabase, ensureS3, ensureMailCatcher,
+  runTsx, needsBuild, build, ensureWorker, startApp, stopService, log, root, dataDir,
+} from "./stack.mjs";
+import { spawnSync } from "node:child_process";
+import fs from "node:fs";
+import path from "node:path";
+
+const p = profile("test");
+const only = process.argv.slice(2); // e.g. `npm test -- unit` or `-- e2e`
+const want = (part) => only.length === 0 || only.includes(part);
+
+ensureNodeModules();
+if (want("e2e")) ensureChromium();
+await ensurePostgres(p);
+
+for (const s of ["app", "worker", "s3", "mail"]) await stopService(`test-${s}`);
+for (const d of ["s3-test", "mail-test"]) fs.rmSync(path.join(dataDir, d), { recursive: true, force: true });
+await ensureS3(p);
+await ensureMailCatcher(p);
+
+const resetDatabase = () => {
+  ensureDatabase(p, { fresh: true });
+  runTsx(path.join(root, "db", "migrate.ts"), p.env);
+  runTsx(path.join(root, "db", "seed", "index.ts"), p.env);
+};
+
+const env = { ...process.env, ...p.env };
+resetDatabase();
+const bin = (n) => path.join(root, "node_modules", ".bin", n);
+let failed = false;
+const step = (label, cmd, args) => {
+  log(`— ${label}`);
+  const r = spawnSync(cmd, args, { cwd: root, env, stdio: "inherit" });
+  if (r.status !== 0) {
+    failed = true;
+    log(`${label} FAILED (exit ${r.status ?? r.signal})`);
+  }
+};
+
+try {
+  if (want("unit")) step("unit tests", bin("vitest"), ["run", "--project", "unit"]);
+  if ((want("integration") || want("e2e")) && needsBuild(p.distDir)) build(p);
+  if (want("integration")) {
+    // Integration tests talk to the running app over HTTP and start their own workers.
+    await startApp(p);
+    step("integration tests", bin("vitest"), ["run", "--project", "integration"]);
+    await stopService("test-app");
+  }
+  if (want("e2e")) {
+    // The browser tests start from the demo seed, whatever the integration tests changed.
+    if (want("integration")) resetDatabase();
+    await ensureWorker(p);
+    await startApp(p);
+    step("end-to-end tests (Chromium)", bin("playwright"), ["test"]);
+  }
+} finally {
+  if (!process.env.KEEP_TEST_STACK) for (const s of ["app", "worker", "s3", "mail"]) await stopService(`test-${s}`);
+}
+log(failed ? "some tests FAILED" : "all tests passed");
+process.exit(failed ? 1 : 0);
