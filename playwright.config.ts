@@ -16,7 +16,7 @@ export default defineConfig({
   workers: 2,
   retries: 0,
   reporter: [["list"]],
-  outputDir: ".data/test-results",
+  outputDir: process.env.PLAYWRIGHT_OUTPUT_DIR ?? ".data/test-results",
   use: {
     baseURL: process.env.APP_URL ?? "http://127.0.0.1:3100",
     trace: "retain-on-failure",

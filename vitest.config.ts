@@ -3,7 +3,7 @@
 import { defineConfig } from "vitest/config";
 import path from "node:path";
 
-const alias = { "@": path.resolve(__dirname), "server-only": path.resolve(__dirname, "tests/support/server-only.ts") };
+const alias = { "@": path.resolve(import.meta.dirname), "server-only": path.resolve(import.meta.dirname, "tests/support/server-only.ts") };
 
 export default defineConfig({
   resolve: { alias },

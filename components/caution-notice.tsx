@@ -1,7 +1,8 @@
-/** The caution every calculation, permit and capacity screen carries. */
-export const CAUTION_TEXT =
-  "Results are for checking by a competent temporary works designer. Supplier data and local codes govern. No member may be loaded without a valid permit to load.";
+import { CAUTION_TEXT } from "@/lib/caution";
 
+export { CAUTION_TEXT };
+
+/** The caution every calculation, permit and capacity screen carries. */
 export function CautionNotice({ compact = false }: { compact?: boolean }) {
   return (
     <aside

@@ -27,19 +27,27 @@ function run(cmd, args, opts = {}) {
   return r;
 }
 
-/** Ports and names of one stack profile ("app" for npm start, "test" for npm test). */
+/**
+ * Ports and names of one stack profile ("app" for npm start, "test" for npm test).
+ * STRUTWISE_TEST_SLOT=N gives a test stack its own ports, database, bucket, inbox and build
+ * folder, so several test runs can share one machine.
+ */
 export function profile(name) {
   const env = process.env;
   const test = name === "test";
+  const slot = test ? Number(env.STRUTWISE_TEST_SLOT ?? 0) : 0;
+  const suffix = slot ? `-${slot}` : "";
+  const off = slot * 10;
   const pgPort = Number(env.PGPORT_STRUTWISE ?? 55432);
-  const dbName = test ? "strutwise_test" : "strutwise";
-  const s3Port = Number(test ? env.TEST_S3_PORT ?? 4579 : env.S3_PORT ?? 4569);
-  const smtpPort = Number(test ? env.TEST_SMTP_PORT ?? 2025 : env.SMTP_PORT ?? 1025);
-  const inboxPort = Number(test ? env.TEST_INBOX_PORT ?? 2080 : env.INBOX_PORT ?? 1080);
-  const appPort = Number(test ? env.TEST_APP_PORT ?? 3100 : env.PORT ?? 3000);
+  const dbName = test ? `strutwise_test${slot ? `_${slot}` : ""}` : "strutwise";
+  const s3Port = Number(test ? env.TEST_S3_PORT ?? 4579 + off : env.S3_PORT ?? 4569);
+  const smtpPort = Number(test ? env.TEST_SMTP_PORT ?? 2025 + off : env.SMTP_PORT ?? 1025);
+  const inboxPort = Number(test ? env.TEST_INBOX_PORT ?? 2080 + off : env.INBOX_PORT ?? 1080);
+  const appPort = Number(test ? env.TEST_APP_PORT ?? 3100 + off : env.PORT ?? 3000);
   const appUrl = `http://127.0.0.1:${appPort}`;
+  const distDir = test ? `.next-test${suffix}` : ".next";
   return {
-    name,
+    name: test ? `test${suffix}` : name,
     pgPort,
     dbName,
     s3Port,
@@ -47,7 +55,7 @@ export function profile(name) {
     inboxPort,
     appPort,
     appUrl,
-    distDir: test ? ".next-test" : ".next",
+    distDir,
     env: {
       DATABASE_URL: env.DATABASE_URL && !test ? env.DATABASE_URL : `postgres://postgres@127.0.0.1:${pgPort}/${dbName}`,
       S3_ENDPOINT: `http://127.0.0.1:${s3Port}`,
@@ -61,10 +69,11 @@ export function profile(name) {
       INBOX_URL: `http://127.0.0.1:${inboxPort}`,
       APP_URL: appUrl,
       NEXTAUTH_URL: appUrl,
-      NEXT_DIST_DIR: test ? ".next-test" : ".next",
+      NEXT_DIST_DIR: distDir,
       NEXT_TELEMETRY_DISABLED: "1",
       AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
-      STRUTWISE_PROFILE: name,
+      STRUTWISE_PROFILE: test ? "test" : name,
+      PLAYWRIGHT_OUTPUT_DIR: `.data/test-results${suffix}`,
     },
   };
 }

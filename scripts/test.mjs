@@ -16,8 +16,8 @@ ensureNodeModules();
 if (want("e2e")) ensureChromium();
 await ensurePostgres(p);
 
-for (const s of ["app", "worker", "s3", "mail"]) await stopService(`test-${s}`);
-for (const d of ["s3-test", "mail-test"]) fs.rmSync(path.join(dataDir, d), { recursive: true, force: true });
+for (const s of ["app", "worker", "s3", "mail"]) await stopService(`${p.name}-${s}`);
+for (const d of [`s3-${p.name}`, `mail-${p.name}`]) fs.rmSync(path.join(dataDir, d), { recursive: true, force: true });
 await ensureS3(p);
 await ensureMailCatcher(p);
 
@@ -47,7 +47,7 @@ try {
     // Integration tests talk to the running app over HTTP and start their own workers.
     await startApp(p);
     step("integration tests", bin("vitest"), ["run", "--project", "integration"]);
-    await stopService("test-app");
+    await stopService(`${p.name}-app`);
   }
   if (want("e2e")) {
     // The browser tests start from the demo seed, whatever the integration tests changed.
@@ -57,7 +57,7 @@ try {
     step("end-to-end tests (Chromium)", bin("playwright"), ["test"]);
   }
 } finally {
-  if (!process.env.KEEP_TEST_STACK) for (const s of ["app", "worker", "s3", "mail"]) await stopService(`test-${s}`);
+  if (!process.env.KEEP_TEST_STACK) for (const s of ["app", "worker", "s3", "mail"]) await stopService(`${p.name}-${s}`);
 }
 log(failed ? "some tests FAILED" : "all tests passed");
 process.exit(failed ? 1 : 0);

@@ -1,0 +1,313 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useMemo, useState } from "react";
+import { useForm, type UseFormRegister } from "react-hook-form";
+import { Button } from "@/components/ui/button";
+import { describedBy, Field, inputClass } from "@/components/ui/field";
+import { fieldForPath, formToRequest, unitLabels } from "@/lib/calculator/form-request";
+import { calculate, capacityCurve, END_CONDITIONS, METHODS, STEEL_GRADES, TIMBER_CLASSES } from "@/lib/engineering";
+import type { CalculationResult, MethodId } from "@/lib/engineering";
+import { fromMm, fromN } from "@/lib/units";
+import { CALCULATOR_DEFAULTS, calculatorFormSchema, type CalculatorForm } from "@/lib/validations/calculator";
+import { CapacityChart } from "./capacity-chart";
+import { ResultView } from "./result-view";
+
+type Props = { defaultUnits: "si" | "us"; defaultDesignCode: "en1993" | "aisc360-lrfd" | "aisc360-asd" };
+
+const SECTION_METHODS: MethodId[] = ["euler", "en1993", "aisc360-lrfd", "aisc360-asd", "en1995", "nds", "point-brace"];
+
+export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
+  const [outcome, setOutcome] = useState<{ result: CalculationResult; request: Record<string, unknown>; units: "si" | "us" } | null>(null);
+  const [formError, setFormError] = useState<string | null>(null);
+  const form = useForm<CalculatorForm>({
+    resolver: zodResolver(calculatorFormSchema),
+    defaultValues: { ...CALCULATOR_DEFAULTS, units: defaultUnits, method: "en1065", designBasis: defaultDesignCode === "aisc360-asd" ? "asd" : "lrfd" },
+  });
+  const { register, handleSubmit, watch, setError, formState } = form;
+  const errors = formState.errors;
+  const method = watch("method");
+  const units = watch("units");
+  const shape = watch("shape");
+  const u = unitLabels(units);
+  const info = METHODS.find((m) => m.id === method)!;
+  const shapes = info.sectionShapes;
+
+  const onSubmit = handleSubmit((values) => {
+    setFormError(null);
+    const { request, fieldErrors } = formToRequest(values);
+    const local = Object.entries(fieldErrors);
+    if (local.length) {
+      for (const [f, message] of local) setError(f as keyof CalculatorForm, { message });
+      setOutcome(null);
+      return;
+    }
+    const result = calculate(request);
+    if (!result.ok) {
+      const general: string[] = [];
+      for (const e of result.errors) {
+        const f = fieldForPath(e.field);
+        if (f) setError(f, { message: e.message });
+        else general.push(e.message);
+      }
+      setFormError(general.length ? general.join(" ") : "Some values need attention; see the fields marked below.");
+    }
+    setOutcome({ result, request, units: values.units });
+  });
+
+  const curve = useMemo(() => {
+    if (!outcome || !outcome.result.ok) return null;
+    const req = outcome.request;
+    const L = req.lengthMm as number;
+    let from = L * 0.5;
+    let to = L * 1.5;
+    if (req.method === "en1065") {
+      from = (req.minExtensionMm as number | undefined) ?? L * 0.6;
+      to = (req.maxExtensionMm as number | undefined) ?? L;
+    }
+    if (req.method === "supplier-table") {
+      const t = req.table as { lengthMm: number }[];
+      from = t[0]!.lengthMm;
+      to = t[t.length - 1]!.lengthMm;
+    }
+    const us = outcome.units === "us";
+    const pts = capacityCurve(req, from, to, 60).map((p) => ({
+      length: us ? fromMm(p.lengthMm, "ft") : fromMm(p.lengthMm, "m"),
+      capacity: fromN(p.capacityN, us ? "kip" : "kN"),
+      euler: p.eulerN !== undefined ? fromN(p.eulerN, us ? "kip" : "kN") : undefined,
+    }));
+    const operating =
+      req.loadN !== undefined
+        ? { length: us ? fromMm(L, "ft") : fromMm(L, "m"), load: fromN(req.loadN as number, us ? "kip" : "kN") }
+        : null;
+    return { pts, operating, lengthUnit: us ? "ft" : "m", forceUnit: us ? "kip" : "kN" };
+  }, [outcome]);
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,24rem)_1fr]">
+      <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-xl border-2 border-ink/15 bg-paper-raised p-4" aria-label="Calculation inputs">
+        <Field id="method" label="Method" hint={info.description}>
+          <select id="method" className={inputClass} {...register("method")}>
+            {METHODS.map((m) => (
+              <option key={m.id} value={m.id}>
+                {m.label}
+              </option>
+            ))}
+          </select>
+        </Field>
+        <fieldset className="flex gap-2" aria-label="Units">
+          <legend className="mb-1 text-sm font-semibold">Units</legend>
+          {(["si", "us"] as const).map((v) => (
+            <label key={v} className="flex min-h-touch flex-1 cursor-pointer items-center justify-center gap-2 rounded-lg border-2 border-ink/30 px-3 has-[:checked]:border-brand has-[:checked]:bg-brand-soft">
+              <input type="radio" value={v} {...register("units")} />
+              {v === "si" ? "SI (mm, kN, MPa)" : "US (in, kip, ksi)"}
+            </label>
+          ))}
+        </fieldset>
+        <Text id="length" label={method === "en1065" || method === "supplier-table" ? `Extension (${u.length})` : `Length between restraints (${u.length})`} reg={register} error={errors.length?.message} hint={units === "us" ? `e.g. 9' 6" or 114 in` : "e.g. 2850 or 2.85 m"} />
+
+        {SECTION_METHODS.includes(method) ? (
+          <>
+            <Field id="ends" label="End conditions" hint="Recommended design K values (AISC 360-16 Commentary Table C-A-7.1) unless you give K.">
+              <select id="ends" className={inputClass} {...register("ends")}>
+                <option value="">Both ends pinned (default)</option>
+                {END_CONDITIONS.map((e) => (
+                  <option key={e.id} value={e.id}>
+                    {e.label} — K {e.designK}
+                  </option>
+                ))}
+              </select>
+            </Field>
+            <Text id="k" label="Effective length factor K (optional)" reg={register} error={errors.k?.message} />
+            <Field id="shape" label="Section">
+              <select id="shape" className={inputClass} {...register("shape")}>
+                {shapes.map((s) => (
+                  <option key={s} value={s}>
+                    {{ chs: "Circular hollow (tube)", rhs: "Rectangular hollow", rect: "Solid rectangle", round: "Solid round", given: "Given A and I" }[s]}
+                  </option>
+                ))}
+              </select>
+            </Field>
+            {shape === "chs" || shape === "round" ? <Text id="d" label={`Outside diameter D (${u.dim})`} reg={register} error={errors.d?.message} /> : null}
+            {shape === "rhs" || shape === "rect" ? (
+              <>
+                <Text id="b" label={`Width b (${u.dim})`} reg={register} error={errors.b?.message} />
+                <Text id="h" label={`Depth h (${u.dim})`} reg={register} error={errors.h?.message} />
+              </>
+            ) : null}
+            {shape === "chs" || shape === "rhs" ? <Text id="t" label={`Wall thickness t (${u.dim})`} reg={register} error={errors.t?.message} /> : null}
+            {shape === "given" ? (
+              <>
+                <Text id="area" label={`Area A (${u.area})`} reg={register} error={errors.area?.message} />
+                <Text id="iMin" label={`Least second moment of area I (${u.inertia})`} reg={register} error={errors.iMin?.message} />
+              </>
+            ) : null}
+          </>
+        ) : null}
+
+        {["en1993", "aisc360-lrfd", "aisc360-asd"].includes(method) ? (
+          <>
+            <Field id="steelGrade" label="Steel grade" hint="Or type fy below to override.">
+              <select id="steelGrade" className={inputClass} {...register("steelGrade")}>
+                <option value="">— choose —</option>
+                {STEEL_GRADES.map((g) => (
+                  <option key={g.id} value={g.id}>
+                    {g.label}
+                  </option>
+                ))}
+              </select>
+            </Field>
+            <Text id="fy" label={`Yield strength fy (${u.stress})`} reg={register} error={errors.fy?.message} />
+          </>
+        ) : null}
+        {method === "en1993" ? (
+          <>
+            <Field id="formed" label="How the section was made" hint="Chooses the buckling curve (EN 1993-1-1 Table 6.2) unless you pick one.">
+              <select id="formed" className={inputClass} {...register("formed")}>
+                <option value="">Not stated</option>
+                <option value="hot-finished">Hot-finished</option>
+                <option value="cold-formed">Cold-formed</option>
+              </select>
+            </Field>
+            <Field id="curve" label="Buckling curve (optional)">
+              <select id="curve" className={inputClass} {...register("curve")}>
+                <option value="">From the section (Table 6.2)</option>
+                {["a0", "a", "b", "c", "d"].map((c) => (
+                  <option key={c} value={c}>
+                    {c}
+                  </option>
+                ))}
+              </select>
+            </Field>
+            <Text id="gammaM1" label="γM1 (default 1.0)" reg={register} error={errors.gammaM1?.message} />
+          </>
+        ) : null}
+        {["euler", "en1993", "aisc360-lrfd", "aisc360-asd", "point-brace"].includes(method) ? (
+          <Text id="e" label={`Modulus E (${u.stress}, optional)`} reg={register} error={errors.e?.message} />
+        ) : null}
+
+        {method === "en1995" ? (
+          <>
+            <Field id="strengthClass" label="Strength class (EN 338 / EN 14080)">
+              <select id="strengthClass" className={inputClass} {...register("strengthClass")}>
+                <option value="">— choose —</option>
+                {TIMBER_CLASSES.map((c) => (
+                  <option key={c.id} value={c.id}>
+                    {c.id}
+                  </option>
+                ))}
+              </select>
+            </Field>
+            <Text id="kmod" label="kmod (optional)" reg={register} error={errors.kmod?.message} />
+            <Text id="gammaM" label="γM (optional)" reg={register} error={errors.gammaM?.message} />
+          </>
+        ) : null}
+        {method === "nds" ? (
+          <>
+            <Text id="fcStar" label={`Fc* adjusted (${u.timberStress})`} reg={register} error={errors.fcStar?.message} />
+            <Text id="eMin" label={`Emin' adjusted (${u.timberStress})`} reg={register} error={errors.eMin?.message} />
+            <Field id="timberType" label="Timber type">
+              <select id="timberType" className={inputClass} {...register("timberType")}>
+                <option value="">Sawn (c = 0.8)</option>
+                <option value="round">Round pole (c = 0.85)</option>
+                <option value="glulam">Glulam (c = 0.9)</option>
+              </select>
+            </Field>
+          </>
+        ) : null}
+        {method === "en1065" ? (
+          <>
+            <Field id="propClass" label="EN 1065 class">
+              <select id="propClass" className={inputClass} {...register("propClass")}>
+                {["A", "B", "C", "D", "E"].map((c) => (
+                  <option key={c} value={c}>
+                    Class {c}
+                  </option>
+                ))}
+              </select>
+            </Field>
+            <Text id="maxExtension" label={`Maximum extension (${u.dim})`} reg={register} error={errors.maxExtension?.message} />
+            <Text id="minExtension" label={`Minimum extension (${u.dim}, optional)`} reg={register} error={errors.minExtension?.message} />
+          </>
+        ) : null}
+        {method === "supplier-table" ? (
+          <Field id="table" label={`Supplier table: one row per line, "length (${u.dim}), safe load (${u.force})"`} error={errors.table?.message}>
+            <textarea
+              id="table"
+              rows={5}
+              className={`${inputClass} font-mono`}
+              placeholder={units === "us" ? "60, 22\n100, 18\n140, 12" : "1500, 100\n2500, 85\n3500, 62"}
+              aria-invalid={!!errors.table}
+              aria-describedby={describedBy("table", errors.table?.message)}
+              {...register("table")}
+            />
+          </Field>
+        ) : null}
+        {method === "point-brace" ? (
+          <>
+            <Text id="braces" label="Number of equally spaced braces" reg={register} error={errors.braces?.message} />
+            <Field id="designBasis" label="AISC Appendix 6 basis">
+              <select id="designBasis" className={inputClass} {...register("designBasis")}>
+                <option value="lrfd">LRFD (φ = 0.75)</option>
+                <option value="asd">ASD (Ω = 2.00)</option>
+              </select>
+            </Field>
+          </>
+        ) : null}
+        <Text
+          id="load"
+          label={`Load to compare (${u.force}${method === "point-brace" ? ", required" : ", optional"})`}
+          reg={register}
+          error={errors.load?.message}
+          hint={loadHint(info.basis)}
+        />
+        {formError ? (
+          <p role="alert" className="rounded-lg border-2 border-bad bg-bad-soft p-3 font-semibold text-bad">
+            <span aria-hidden>⛔ </span>
+            {formError}
+          </p>
+        ) : null}
+        <Button type="submit">Calculate</Button>
+      </form>
+
+      <div className="flex min-w-0 flex-col gap-4">
+        {outcome?.result.ok ? (
+          <>
+            <ResultView result={outcome.result} units={outcome.units} />
+            {curve && curve.pts.length > 1 ? <CapacityChart {...curve} /> : null}
+          </>
+        ) : (
+          <p className="rounded-xl border-2 border-dashed border-ink/30 p-6 text-ink-soft">
+            Enter the member and press Calculate. The capacity, utilisation and every step of the working appear here.
+          </p>
+        )}
+      </div>
+    </div>
+  );
+}
+
+function loadHint(basis: string) {
+  if (basis === "design-resistance") return "A factored (design) load: this method gives a design resistance.";
+  if (basis === "available-strength") return "A factored (LRFD) load: this method gives the design strength φcPn.";
+  if (basis === "allowable-strength") return "A working (unfactored) load: this method gives an allowable strength.";
+  if (basis === "safe-working-load") return "A working (unfactored) load: this method gives a safe working load.";
+  return "The load to compare with the elastic critical load (no safety margin).";
+}
+
+function Text({
+  id, label, reg, error, hint,
+}: { id: keyof CalculatorForm; label: string; reg: UseFormRegister<CalculatorForm>; error?: string; hint?: string }) {
+  return (
+    <Field id={id} label={label} error={error} hint={hint}>
+      <input
+        id={id}
+        inputMode="decimal"
+        autoComplete="off"
+        className={inputClass}
+        aria-invalid={!!error}
+        aria-describedby={describedBy(id, error, !!hint)}
+        {...reg(id)}
+      />
+    </Field>
+  );
+}

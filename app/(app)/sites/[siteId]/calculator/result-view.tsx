@@ -1,0 +1,105 @@
+import { Icon } from "@/components/icons";
+import type { CalculationSuccess } from "@/lib/engineering";
+import { fromN } from "@/lib/units";
+
+const BASIS_WORDS: Record<string, string> = {
+  "elastic-critical": "Elastic critical load (no safety margin)",
+  "design-resistance": "Design resistance",
+  "available-strength": "Available strength (LRFD)",
+  "allowable-strength": "Allowable strength (ASD)",
+  "safe-working-load": "Safe working load",
+};
+
+function fmtValue(v: number | string) {
+  if (typeof v === "string") return v;
+  if (v === 0) return "0";
+  const a = Math.abs(v);
+  return a >= 1e6 || a < 1e-3 ? v.toExponential(3) : Number(v.toPrecision(4)).toLocaleString("en-GB", { maximumFractionDigits: 4 });
+}
+
+export function ResultView({ result, units }: { result: CalculationSuccess; units: "si" | "us" }) {
+  const fu = units === "us" ? "kip" : "kN";
+  const cap = fromN(result.capacityN, fu);
+  return (
+    <section aria-label="Result" className="flex flex-col gap-4">
+      <div className="grid gap-3 sm:grid-cols-3">
+        <div className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4">
+          <p className="text-sm font-semibold text-ink-soft">{BASIS_WORDS[result.basis]}</p>
+          <p className="tabular text-3xl font-bold" data-testid="capacity">
+            {cap.toFixed(1)} {fu}
+          </p>
+        </div>
+        {result.utilisation !== undefined ? (
+          <div className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4">
+            <p className="text-sm font-semibold text-ink-soft">Utilisation</p>
+            <p className="tabular text-3xl font-bold" data-testid="utilisation">
+              {(result.utilisation * 100).toFixed(0)} %
+            </p>
+          </div>
+        ) : null}
+        {result.pass !== undefined ? (
+          <div
+            data-testid="verdict"
+            className={`flex items-center gap-3 rounded-xl border-2 p-4 ${result.pass ? "border-ok bg-ok-soft text-ok" : "border-bad bg-bad-soft text-bad"}`}
+          >
+            <Icon name={result.pass ? "ok" : "bad"} className="h-8 w-8" />
+            <p className="text-2xl font-bold">{result.pass ? "PASS" : "FAIL"}</p>
+          </div>
+        ) : null}
+      </div>
+      <p className="text-sm">{result.loadBasis}</p>
+      {result.requiredStiffnessNPerMm !== undefined ? (
+        <dl className="grid gap-2 rounded-xl border-2 border-ink/15 bg-paper-raised p-4 sm:grid-cols-3">
+          <div>
+            <dt className="text-sm text-ink-soft">Ideal brace stiffness</dt>
+            <dd className="tabular font-bold">{fmtValue(result.idealStiffnessNPerMm ?? 0)} N/mm</dd>
+          </div>
+          <div>
+            <dt className="text-sm text-ink-soft">Required brace stiffness</dt>
+            <dd className="tabular font-bold">{fmtValue(result.requiredStiffnessNPerMm)} N/mm</dd>
+          </div>
+          <div>
+            <dt className="text-sm text-ink-soft">Required brace force</dt>
+            <dd className="tabular font-bold">{fmtValue(result.requiredForceN ?? 0)} N</dd>
+          </div>
+        </dl>
+      ) : null}
+      {result.warnings.length ? (
+        <ul className="flex flex-col gap-2" aria-label="Warnings">
+          {result.warnings.map((w) => (
+            <li key={w} className="flex items-start gap-2 rounded-lg border-2 border-warn bg-warn-soft p-3">
+              <Icon name="warn" className="h-5 w-5 shrink-0 text-warn" />
+              {w}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      <div className="overflow-x-auto rounded-xl border-2 border-ink/15 bg-paper-raised">
+        <table className="w-full text-left text-sm">
+          <caption className="p-3 text-left text-base font-bold">Working</caption>
+          <thead className="bg-paper-sunk">
+            <tr>
+              <th scope="col" className="p-2">Step</th>
+              <th scope="col" className="p-2">Symbol</th>
+              <th scope="col" className="p-2 text-right">Value</th>
+              <th scope="col" className="p-2">Unit</th>
+              <th scope="col" className="p-2">Source</th>
+            </tr>
+          </thead>
+          <tbody>
+            {result.steps.map((s, i) => (
+              <tr key={i} className="border-t border-ink/10 align-top">
+                <td className="p-2">{s.label}</td>
+                <td className="p-2 font-mono">{s.symbol}</td>
+                <td className="tabular p-2 text-right">{fmtValue(s.value)}</td>
+                <td className="p-2">{s.unit}</td>
+                <td className="p-2 text-ink-soft">{s.source}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <p className="text-xs text-ink-soft">Engine {result.engineVersion}. Steps are in SI units (N, mm, MPa).</p>
+    </section>
+  );
+}

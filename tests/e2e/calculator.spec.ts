@@ -1,0 +1,33 @@
+import { expect, test } from "@playwright/test";
+import { openSite, signIn } from "./helpers";
+
+test("an engineer checks a prop at its extension and reads the working", async ({ page }) => {
+  await signIn(page, "engineer@demo.example");
+  await openSite(page, "Wexcombe Wharf — Block B");
+  await page.goto(`${new URL(page.url()).pathname}/calculator`);
+  await expect(page.getByRole("note", { name: "Caution" })).toBeVisible();
+  await page.getByLabel("Method").selectOption("en1065");
+  await page.getByLabel("EN 1065 class").selectOption("D");
+  await page.getByLabel(/^Extension/).fill("2850");
+  await page.getByLabel(/^Maximum extension/).fill("3350");
+  await page.getByLabel(/^Load to compare/).fill("12");
+  await page.getByRole("button", { name: "Calculate" }).click();
+  await expect(page.getByTestId("capacity")).toContainText("kN");
+  await expect(page.getByTestId("verdict")).toContainText(/PASS|FAIL/);
+  await expect(page.getByRole("table")).toContainText("EN 1065");
+  await expect(page.getByText("Capacity against length")).toBeVisible();
+});
+
+test("a steel tube with an impossible wall shows the reason on the field", async ({ page }) => {
+  await signIn(page, "designer@demo.example");
+  await openSite(page, "Orchard Row Basement");
+  await page.goto(`${new URL(page.url()).pathname}/calculator`);
+  await page.getByLabel("Method").selectOption("en1993");
+  await page.getByLabel(/^Length between restraints/).fill("3000");
+  await page.getByLabel(/^Outside diameter/).fill("100");
+  await page.getByLabel(/^Wall thickness/).fill("60");
+  await page.getByLabel("Steel grade").selectOption("S355");
+  await page.getByRole("button", { name: "Calculate" }).click();
+  await expect(page.locator("#t-error")).toContainText(/thickness/i);
+  await expect(page.getByTestId("capacity")).toHaveCount(0);
+});

@@ -1,0 +1,56 @@
+// The calculator turns what a person types (SI or US units) into the engine's SI request.
+// Conversion factors: NIST SP 811 (2008) Appendix B — 1 in = 25.4 mm exactly, 1 ft = 0.3048 m
+// exactly, 1 kip = 4.448 222 kN, 1 ksi = 6.894 757 MPa, 1 psi = 6.894 757 kPa.
+import { describe, expect, it } from "vitest";
+import { fieldForPath, formToRequest } from "@/lib/calculator/form-request";
+import { calculate } from "@/lib/engineering";
+import { CALCULATOR_DEFAULTS, type CalculatorForm } from "@/lib/validations/calculator";
+
+const form = (over: Partial<CalculatorForm>): CalculatorForm => ({ ...CALCULATOR_DEFAULTS, ...over });
+
+describe("formToRequest", () => {
+  it("reads US feet-and-inches, inches, kips and ksi into mm, N and MPa", () => {
+    const { request, fieldErrors } = formToRequest(
+      form({ method: "aisc360-lrfd", units: "us", length: `9' 6"`, shape: "chs", d: "4.5", t: "0.237", fy: "35", load: "20" }),
+    );
+    expect(fieldErrors).toEqual({});
+    expect(request.lengthMm).toBeCloseTo(9.5 * 304.8, 6); // 2895.6 mm
+    expect(request.section).toEqual({ shape: "chs", dMm: expect.closeTo(114.3, 6), tMm: expect.closeTo(6.0198, 6) });
+    expect(request.fyMpa).toBeCloseTo(35 * 6.894757, 3);
+    expect(request.loadN).toBeCloseTo(20 * 4448.222, 0);
+  });
+
+  it("keeps SI values as typed, with kN converted to N", () => {
+    const { request } = formToRequest(form({ method: "en1065", units: "si", length: "2850", propClass: "D", maxExtension: "3350", load: "12.5" }));
+    expect(request).toMatchObject({ method: "en1065", lengthMm: 2850, propClass: "D", maxExtensionMm: 3350, loadN: 12500 });
+  });
+
+  it("reads a pasted supplier table, and names the line that is not two numbers", () => {
+    const ok = formToRequest(form({ method: "supplier-table", length: "2000", table: "1500, 100\n2500; 85\n3500\t62" }));
+    expect(ok.request.table).toEqual([
+      { lengthMm: 1500, safeLoadN: 100000 },
+      { lengthMm: 2500, safeLoadN: 85000 },
+      { lengthMm: 3500, safeLoadN: 62000 },
+    ]);
+    const bad = formToRequest(form({ method: "supplier-table", length: "2000", table: "1500, 100\n2500 kN" }));
+    expect(bad.fieldErrors.table).toMatch(/Line 2/);
+  });
+
+  it("leaves a missing dimension out so the engine names it, and maps the error back to the field", () => {
+    const { request } = formToRequest(form({ method: "euler", length: "3000", shape: "chs", d: "48.3", t: "" }));
+    const result = calculate(request);
+    expect(result.ok).toBe(false);
+    if (!result.ok) {
+      const e = result.errors.find((x) => x.field === "section.tMm");
+      expect(e?.message).toBeTruthy();
+      expect(fieldForPath("section.tMm")).toBe("t");
+    }
+    expect(fieldForPath("table.2.lengthMm")).toBe("table");
+    expect(fieldForPath("")).toBeNull();
+  });
+
+  it("reports an unreadable length instead of guessing", () => {
+    const { fieldErrors } = formToRequest(form({ length: "two metres" }));
+    expect(fieldErrors.length).toBeTruthy();
+  });
+});
