@@ -80,6 +80,7 @@ export function profile(name) {
 
 // ---------------------------------------------------------------- npm install
 export function ensureNodeModules() {
+  if (process.env.STRUTWISE_SKIP_INSTALL === "1") return;
   const lock = path.join(root, "package-lock.json");
   const marker = path.join(root, "node_modules", ".package-lock.json");
   const stale =
