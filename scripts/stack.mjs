@@ -16,9 +16,12 @@ export function log(msg) {
   process.stdout.write(`[strutwise] ${msg}\n`);
 }
 
+export class StackError extends Error {}
+
+/** Stops the current command with a clear message; callers' cleanup (finally) still runs. */
 export function fail(msg) {
   process.stderr.write(`[strutwise] ${msg}\n`);
-  process.exit(1);
+  throw new StackError(msg);
 }
 
 function run(cmd, args, opts = {}) {

@@ -2,7 +2,7 @@
 // vitest (unit + integration against the real services) and Playwright in Debian's Chromium.
 import {
   profile, ensureNodeModules, ensureChromium, ensurePostgres, ensureDatabase, ensureS3, ensureMailCatcher,
-  runTsx, needsBuild, build, ensureWorker, startApp, stopService, log, root, dataDir,
+  runTsx, needsBuild, ensureWorker, startApp, stopService, log, root, dataDir,
 } from "./stack.mjs";
 import { spawnSync } from "node:child_process";
 import fs from "node:fs";
@@ -37,12 +37,15 @@ const step = (label, cmd, args) => {
   if (r.status !== 0) {
     failed = true;
     log(`${label} FAILED (exit ${r.status ?? r.signal})`);
+    return false;
   }
+  return true;
 };
 
 try {
   if (want("unit")) step("unit tests", bin("vitest"), ["run", "--project", "unit"]);
-  if ((want("integration") || want("e2e")) && needsBuild(p.distDir)) build(p);
+  const built = !(want("integration") || want("e2e")) || !needsBuild(p.distDir) || step(`build (${p.distDir})`, bin("next"), ["build"]);
+  if (!built) throw new Error("the app did not build; integration and end-to-end tests were not run");
   if (want("integration")) {
     // Integration tests talk to the running app over HTTP and start their own workers.
     await startApp(p);
@@ -56,6 +59,9 @@ try {
     await startApp(p);
     step("end-to-end tests (Chromium)", bin("playwright"), ["test"]);
   }
+} catch (e) {
+  failed = true;
+  log(String(e instanceof Error ? e.message : e));
 } finally {
   if (!process.env.KEEP_TEST_STACK) for (const s of ["app", "worker", "s3", "mail"]) await stopService(`${p.name}-${s}`);
 }
