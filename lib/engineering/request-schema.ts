@@ -11,6 +11,7 @@ import { METHOD_IDS, type CalculationRequest, type FieldError, type Section, typ
 
 /** Words for what arrived, e.g. `the text "12"`, so the message says why it was refused. */
 export function describeValue(v: unknown): string {
+  if (v === undefined) return "nothing";
   if (v === null) return "an empty value (null)";
   if (typeof v === "string") return `the text "${v.length > 40 ? v.slice(0, 40) + "…" : v}"`;
   if (typeof v === "number") {

@@ -6,7 +6,7 @@ export const DEMO_PASSWORD = "strutwise-demo";
 export type Client = {
   email: string | null;
   fetch: (path: string, init?: RequestInit) => Promise<Response>;
-  json: <T = unknown>(path: string, init?: RequestInit & { body?: unknown }) => Promise<{ status: number; body: T }>;
+  json: <T = unknown>(path: string, init?: Omit<RequestInit, "body"> & { body?: unknown }) => Promise<{ status: number; body: T }>;
 };
 
 function cookiesFrom(res: Response, jar: Map<string, string>) {
