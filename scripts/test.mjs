@@ -42,14 +42,39 @@ const step = (label, cmd, args) => {
   return true;
 };
 
+// Machine-readable results, summed into one closing line.
+const reportFile = (part) => path.join(dataDir, `report-${p.name}-${part}.json`);
+for (const part of ["unit", "integration", "e2e"]) fs.rmSync(reportFile(part), { force: true });
+const vitestReport = (part) => ["--reporter=default", "--reporter=json", `--outputFile.json=${reportFile(part)}`];
+
+function summary() {
+  let passed = 0;
+  let failedCount = 0;
+  let skipped = 0;
+  for (const part of ["unit", "integration"]) {
+    if (!fs.existsSync(reportFile(part))) continue;
+    const r = JSON.parse(fs.readFileSync(reportFile(part), "utf8"));
+    passed += r.numPassedTests ?? 0;
+    failedCount += r.numFailedTests ?? 0;
+    skipped += (r.numPendingTests ?? 0) + (r.numTodoTests ?? 0);
+  }
+  if (fs.existsSync(reportFile("e2e"))) {
+    const st = JSON.parse(fs.readFileSync(reportFile("e2e"), "utf8")).stats ?? {};
+    passed += (st.expected ?? 0) + (st.flaky ?? 0);
+    failedCount += st.unexpected ?? 0;
+    skipped += st.skipped ?? 0;
+  }
+  return { passed, failedCount, skipped };
+}
+
 try {
-  if (want("unit")) step("unit tests", bin("vitest"), ["run", "--project", "unit"]);
+  if (want("unit")) step("unit tests", bin("vitest"), ["run", "--project", "unit", ...vitestReport("unit")]);
   const built = !(want("integration") || want("e2e")) || !needsBuild(p.distDir) || step(`build (${p.distDir})`, bin("next"), ["build"]);
   if (!built) throw new Error("the app did not build; integration and end-to-end tests were not run");
   if (want("integration")) {
     // Integration tests talk to the running app over HTTP and start their own workers.
     await startApp(p);
-    step("integration tests", bin("vitest"), ["run", "--project", "integration"]);
+    step("integration tests", bin("vitest"), ["run", "--project", "integration", ...vitestReport("integration")]);
     await stopService(`${p.name}-app`);
   }
   if (want("e2e")) {
@@ -57,7 +82,8 @@ try {
     if (want("integration")) resetDatabase();
     await ensureWorker(p);
     await startApp(p);
-    step("end-to-end tests (Chromium)", bin("playwright"), ["test"]);
+    env.PLAYWRIGHT_JSON_OUTPUT_NAME = reportFile("e2e");
+    step("end-to-end tests (Chromium)", bin("playwright"), ["test", "--reporter=list,json"]);
   }
 } catch (e) {
   failed = true;
@@ -65,5 +91,8 @@ try {
 } finally {
   if (!process.env.KEEP_TEST_STACK) for (const s of ["app", "worker", "s3", "mail"]) await stopService(`${p.name}-${s}`);
 }
+const totals = summary();
 log(failed ? "some tests FAILED" : "all tests passed");
+if (failed && totals.failedCount === 0) totals.failedCount = 1; // a step failed outside the runners (build, start-up)
+process.stdout.write(`${totals.passed} passed, ${totals.failedCount} failed${totals.skipped ? `, ${totals.skipped} skipped` : ""}\n`);
 process.exit(failed ? 1 : 0);

@@ -1,7 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useRef, useState } from "react";
 import { useForm, type UseFormRegister } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
@@ -20,6 +20,11 @@ const SECTION_METHODS: MethodId[] = ["euler", "en1993", "aisc360-lrfd", "aisc360
 export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
   const [outcome, setOutcome] = useState<{ result: CalculationResult; request: Record<string, unknown>; units: "si" | "us" } | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
+  const resultRef = useRef<HTMLDivElement>(null);
+  // On a phone the result is below the form: bring it into view after each calculation.
+  useEffect(() => {
+    if (outcome?.result.ok && window.matchMedia("(max-width: 1023px)").matches) resultRef.current?.scrollIntoView({ behavior: "smooth", block: "start" });
+  }, [outcome]);
   const form = useForm<CalculatorForm>({
     resolver: zodResolver(calculatorFormSchema),
     defaultValues: { ...CALCULATOR_DEFAULTS, units: defaultUnits, method: "en1065", designBasis: defaultDesignCode === "aisc360-asd" ? "asd" : "lrfd" },
@@ -270,7 +275,7 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
         <Button type="submit">Calculate</Button>
       </form>
 
-      <div className="flex min-w-0 flex-col gap-4">
+      <div ref={resultRef} className="flex min-w-0 scroll-mt-16 flex-col gap-4">
         {outcome?.result.ok ? (
           <>
             <ResultView result={outcome.result} units={outcome.units} />
