@@ -1,5 +1,6 @@
 "use client";
 
+import { Icon } from "@/components/icons";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { signIn } from "next-auth/react";
 import { useState } from "react";
@@ -34,7 +35,7 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
       {formError ? (
         <p role="alert" className="rounded-lg border-2 border-bad bg-bad-soft p-3 font-semibold text-bad">
-          <span aria-hidden>⛔ </span>
+          <Icon name="bad" className="mr-1 inline h-5 w-5 align-text-bottom" />
           {formError}
         </p>
       ) : null}

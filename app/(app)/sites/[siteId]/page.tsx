@@ -1,3 +1,4 @@
+import { Icon } from "@/components/icons";
 import type { Metadata } from "next";
 import { Suspense } from "react";
 import { CautionNotice } from "@/components/caution-notice";
@@ -5,6 +6,8 @@ import { getSiteCounts } from "@/db/queries/sites";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { MEMBER_STATUS_LABELS, PERMIT_STATUS_LABELS } from "@/lib/labels";
 import { ROLE_LABELS } from "@/lib/permissions";
+import { OverloadSummary } from "./alerts/overload-summary";
+import { PermitsAwaitingReview } from "./permits/review-link";
 
 export const metadata: Metadata = { title: "Site overview" };
 
@@ -27,11 +30,11 @@ async function Counts({ siteId }: { siteId: string }) {
         </dl>
         {counts.failing > 0 ? (
           <p role="status" className="mt-3 flex items-center gap-2 rounded-lg border-2 border-bad bg-bad-soft p-3 font-semibold text-bad">
-            <span aria-hidden>⛔</span> {counts.failing} member{counts.failing === 1 ? "" : "s"} failing the capacity check
+            <Icon name="bad" className="h-5 w-5 shrink-0" /> {counts.failing} member{counts.failing === 1 ? "" : "s"} failing the capacity check
           </p>
         ) : (
           <p className="mt-3 flex items-center gap-2 rounded-lg bg-ok-soft p-3 font-semibold text-ok">
-            <span aria-hidden>✔</span> No member is failing its capacity check
+            <Icon name="ok" className="h-5 w-5 shrink-0" /> No member is failing its capacity check
           </p>
         )}
       </section>
@@ -54,7 +57,7 @@ async function Counts({ siteId }: { siteId: string }) {
 
 export default async function SiteOverviewPage({ params }: { params: Promise<{ siteId: string }> }) {
   const { siteId } = await params;
-  const { site, roles } = await loadSitePage(siteId);
+  const { site, roles, user, may } = await loadSitePage(siteId);
   return (
     <div className="flex flex-col gap-4">
       <div>
@@ -64,6 +67,14 @@ export default async function SiteOverviewPage({ params }: { params: Promise<{ s
           {site.address ? ` · ${site.address}` : ""} · You are: {roles.map((r) => ROLE_LABELS[r]).join(", ")}
         </p>
       </div>
+      {may("issuePermit") ? (
+        <Suspense fallback={null}>
+          <PermitsAwaitingReview siteId={site.id} />
+        </Suspense>
+      ) : null}
+      <Suspense fallback={<p className="text-ink-soft">Looking for overloaded members…</p>}>
+        <OverloadSummary siteId={site.id} userId={user.id} />
+      </Suspense>
       <Suspense fallback={<p className="text-ink-soft">Counting members and permits…</p>}>
         <Counts siteId={site.id} />
       </Suspense>

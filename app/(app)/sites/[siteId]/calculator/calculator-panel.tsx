@@ -1,5 +1,6 @@
 "use client";
 
+import { Icon } from "@/components/icons";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { useForm, type UseFormRegister } from "react-hook-form";
@@ -268,7 +269,7 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
         />
         {formError ? (
           <p role="alert" className="rounded-lg border-2 border-bad bg-bad-soft p-3 font-semibold text-bad">
-            <span aria-hidden>⛔ </span>
+            <Icon name="bad" className="mr-1 inline h-5 w-5 align-text-bottom" />
             {formError}
           </p>
         ) : null}
