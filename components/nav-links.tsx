@@ -6,17 +6,24 @@ import { useState } from "react";
 import { Icon } from "@/components/icons";
 import type { NavItem } from "@/lib/navigation";
 
-function isActive(pathname: string, href: string, exact: boolean) {
+function matches(pathname: string, href: string, exact: boolean) {
   return exact ? pathname === href : pathname === href || pathname.startsWith(`${href}/`);
+}
+
+/** The one item to highlight: the most specific link that contains the current path. */
+function activeHref(pathname: string, items: NavItem[], rootHref: string) {
+  return items
+    .filter((i) => matches(pathname, i.href, i.href === rootHref))
+    .sort((a, b) => b.href.length - a.href.length)[0]?.href;
 }
 
 /** Desktop: a column of links. */
 export function SideNav({ items, rootHref }: { items: NavItem[]; rootHref: string }) {
-  const pathname = usePathname();
+  const current = activeHref(usePathname(), items, rootHref);
   return (
     <nav aria-label="Main" className="flex flex-col gap-1">
       {items.map((item) => {
-        const active = isActive(pathname, item.href, item.href === rootHref);
+        const active = item.href === current;
         return (
           <Link
             key={item.href}
@@ -37,7 +44,7 @@ export function SideNav({ items, rootHref }: { items: NavItem[]; rootHref: strin
 
 /** Phone: a bottom bar with the primary items and a "More" sheet for the rest. */
 export function BottomNav({ items, rootHref }: { items: NavItem[]; rootHref: string }) {
-  const pathname = usePathname();
+  const current = activeHref(usePathname(), items, rootHref);
   const [open, setOpen] = useState(false);
   const primary = items.filter((i) => i.primary).slice(0, 4);
   const rest = items.filter((i) => !primary.includes(i));
@@ -50,7 +57,7 @@ export function BottomNav({ items, rootHref }: { items: NavItem[]; rootHref: str
               <Link
                 href={item.href}
                 onClick={() => setOpen(false)}
-                aria-current={isActive(pathname, item.href, false) ? "page" : undefined}
+                aria-current={item.href === current ? "page" : undefined}
                 className="flex min-h-touch items-center gap-3 rounded-lg px-3 font-semibold hover:bg-paper-sunk"
               >
                 <Icon name={item.icon} /> {item.label}
@@ -61,7 +68,7 @@ export function BottomNav({ items, rootHref }: { items: NavItem[]; rootHref: str
       ) : null}
       <ul className="flex">
         {primary.map((item) => {
-          const active = isActive(pathname, item.href, item.href === rootHref);
+          const active = item.href === current;
           return (
             <li key={item.href} className="flex-1">
               <Link

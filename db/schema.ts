@@ -208,6 +208,11 @@ export const members = pgTable(
     index("members_site_zone").on(t.siteId, t.zoneId, t.tag),
     index("members_site_util").on(t.siteId, t.utilisation, t.id),
     index("members_type").on(t.memberTypeId),
+    // Register sorts: each is (key, tag) after the site so a keyset page is one index range scan
+    // (db/queries/member-list.ts). Tag search uses the trigram index in migration members_tag_trgm.
+    index("members_site_ext_tag").on(t.siteId, t.extensionMm, t.tag),
+    index("members_site_updated_tag").on(t.siteId, t.updatedAt, t.tag),
+    index("members_site_util_tag").on(t.siteId, sql`coalesce(${t.utilisation}, 'Infinity'::float8)`, t.tag),
   ],
 );
 

@@ -53,7 +53,7 @@ export function methodFor(type: CheckType, site: CheckSite): { method: string; b
 
 const TYPE_KEYS = [
   "section", "eMpa", "fyMpa", "curve", "gammaM1", "formed", "fc0kMpa", "e005Mpa", "kmod", "gammaM", "betaC",
-  "strengthClass", "timberType", "fcStarMpa", "eMinMpa", "c", "propClass", "table",
+  "strengthClass", "timberType", "serviceClass", "loadDuration", "steelGrade", "fcStarMpa", "eMinMpa", "c", "propClass", "table",
 ] as const;
 
 /** The engine request (SI: mm, N, MPa) and the factor that turned the working load into loadN. */

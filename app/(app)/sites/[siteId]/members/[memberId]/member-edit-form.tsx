@@ -1,0 +1,99 @@
+"use client";
+// Edits a member (PATCH). A change that affects capacity re-checks it; the new result shows at once.
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { Icon } from "@/components/icons";
+import { apiJson } from "@/components/register/api";
+import { CheckResult, type CheckSummary } from "@/components/register/check-result";
+import { MemberFields, type SchemeOption, type TypeOption, type ZoneOption } from "@/components/register/member-fields";
+import { EMPTY_MEMBER_FORM, FIELD_OF, forceText, lengthText, toMemberInput, type MemberFormValues, type UnitSystem } from "@/components/register/member-form-values";
+import { Button } from "@/components/ui/button";
+import { describedBy, Field, inputClass } from "@/components/ui/field";
+import { MEMBER_STATUS_LABELS } from "@/lib/labels";
+
+type EditValues = MemberFormValues & { status: string };
+
+export function MemberEditForm({
+  memberId, unitSystem, member, zones, schemes, types,
+}: {
+  memberId: string;
+  unitSystem: UnitSystem;
+  member: {
+    tag: string; zoneId: string | null; schemeId: string | null; memberTypeId: string; extensionMm: number; endConditions: string;
+    loadSource: "direct" | "slab"; loadN: number; spacingXMm: number | null; spacingYMm: number | null; notes: string | null; status: string;
+  };
+  zones: ZoneOption[];
+  schemes: SchemeOption[];
+  types: TypeOption[];
+}) {
+  const router = useRouter();
+  const initial: EditValues = {
+    ...EMPTY_MEMBER_FORM,
+    tag: member.tag,
+    zoneId: member.zoneId ?? "",
+    schemeId: member.schemeId ?? "",
+    memberTypeId: member.memberTypeId,
+    extension: lengthText(member.extensionMm, unitSystem),
+    endConditions: member.endConditions,
+    loadSource: member.loadSource,
+    load: forceText(member.loadN, unitSystem),
+    spacingX: lengthText(member.spacingXMm, unitSystem),
+    spacingY: lengthText(member.spacingYMm, unitSystem),
+    notes: member.notes ?? "",
+    status: member.status,
+  };
+  const { register, handleSubmit, watch, setError, formState } = useForm<EditValues>({ defaultValues: initial });
+  const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
+  const [result, setResult] = useState<{ check: CheckSummary; loadN: number } | null>(null);
+  const statusError = formState.errors.status?.message;
+  const editable = ["draft", "submitted", "out_of_service"].includes(member.status);
+
+  const onSubmit = handleSubmit(async (values) => {
+    setMessage(null);
+    const { input, errors } = toMemberInput(values, unitSystem);
+    if (Object.keys(errors).length) {
+      for (const [k, m] of Object.entries(errors)) setError(k as keyof EditValues, { type: "parse", message: m });
+      return;
+    }
+    // Send only what changed, so the audit shows exactly that.
+    const before: Record<string, unknown> = toMemberInput(initial, unitSystem).input;
+    const patch: Record<string, unknown> = {};
+    for (const [k, v] of Object.entries(input)) if (JSON.stringify(v) !== JSON.stringify(before[k])) patch[k] = v;
+    if (input.loadSource === "direct" && before.loadN !== undefined && input.loadN !== undefined && Math.abs(Number(input.loadN) - member.loadN) < 0.5) delete patch.loadN;
+    if (values.status !== member.status) patch.status = values.status;
+    if (Object.keys(patch).length === 0) {
+      setMessage({ ok: true, text: "Nothing changed." });
+      return;
+    }
+    const r = await apiJson<{ member: { loadN: number }; check: CheckSummary | null }>(`/api/v1/members/${memberId}`, { method: "PATCH", body: patch });
+    if (!r.ok) {
+      for (const [k, m] of Object.entries(r.error.fields)) setError((FIELD_OF[k] ?? k) as keyof EditValues, { type: "server", message: m });
+      setMessage({ ok: false, text: Object.keys(r.error.fields).length ? "Some values need attention; nothing was changed." : r.error.message });
+      return;
+    }
+    setResult(r.data.check ? { check: r.data.check, loadN: r.data.member.loadN } : null);
+    setMessage({ ok: true, text: r.data.check ? "Saved and re-checked." : "Saved." });
+    router.refresh();
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="Edit member">
+      <MemberFields register={register as never} errors={formState.errors} watch={watch as never} unitSystem={unitSystem} zones={zones} schemes={schemes} types={types} />
+      <Field id="status" label="Status" error={statusError} hint={editable ? undefined : "Loaded and struck follow from permits."}>
+        <select id="status" className={inputClass} disabled={!editable} aria-invalid={!!statusError} aria-describedby={describedBy("status", statusError, !editable)} {...register("status")}>
+          {(editable ? (["draft", "submitted", "out_of_service"] as const) : ([member.status] as const)).map((s) => (
+            <option key={s} value={s}>{MEMBER_STATUS_LABELS[s as keyof typeof MEMBER_STATUS_LABELS]}</option>
+          ))}
+        </select>
+      </Field>
+      {message ? (
+        <p role={message.ok ? "status" : "alert"} className={`flex items-center gap-2 font-semibold ${message.ok ? "text-ok" : "text-bad"}`}>
+          <Icon name={message.ok ? "ok" : "bad"} className="h-5 w-5" /> {message.text}
+        </p>
+      ) : null}
+      {result ? <CheckResult check={result.check} loadN={result.loadN} forceUnit={unitSystem === "us" ? "kip" : "kN"} title="New check" /> : null}
+      <Button type="submit" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save changes"}</Button>
+    </form>
+  );
+}

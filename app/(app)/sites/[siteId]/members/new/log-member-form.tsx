@@ -1,0 +1,203 @@
+"use client";
+// Logging a member on a phone: one form, one main action. Everything typed (and the ids of the
+// photos already uploaded) is kept on the phone until the server has saved the member.
+import Link from "next/link";
+import { useCallback, useEffect, useRef, useState } from "react";
+import { useForm, type Resolver } from "react-hook-form";
+import { Icon } from "@/components/icons";
+import { apiJson } from "@/components/register/api";
+import { CheckResult, type CheckSummary } from "@/components/register/check-result";
+import { MemberFields, type SchemeOption, type TypeOption, type ZoneOption } from "@/components/register/member-fields";
+import { EMPTY_MEMBER_FORM, FIELD_OF, toMemberInput, type MemberFormValues, type UnitSystem } from "@/components/register/member-form-values";
+import { PhotoUploader, type UploadedPhoto } from "@/components/register/photo-uploader";
+import { Button, buttonClass } from "@/components/ui/button";
+import { memberCreateSchema } from "@/lib/validations/member";
+
+type Saved = { member: { id: string; tag: string; loadN: number; status: string }; check: CheckSummary };
+type Draft = { values: MemberFormValues; photos: UploadedPhoto[]; savedAt: string };
+
+function draftKey(siteId: string) {
+  return `strutwise:log-member:${siteId}`;
+}
+
+function readDraft(siteId: string): Draft | null {
+  try {
+    const raw = window.localStorage.getItem(draftKey(siteId));
+    if (!raw) return null;
+    const d = JSON.parse(raw) as Draft;
+    return d && typeof d === "object" && d.values ? d : null;
+  } catch {
+    return null;
+  }
+}
+
+export function LogMemberForm({
+  siteId, unitSystem, prefillTag, zones, schemes, types,
+}: { siteId: string; unitSystem: UnitSystem; prefillTag: string; zones: ZoneOption[]; schemes: SchemeOption[]; types: TypeOption[] }) {
+  const resolver: Resolver<MemberFormValues> = useCallback(
+    async (values) => {
+      const { input, errors } = toMemberInput(values, unitSystem);
+      const all: Record<string, string> = { ...(errors as Record<string, string>) };
+      const parsed = memberCreateSchema.safeParse({ ...input, submit: values.submit });
+      if (!parsed.success) {
+        for (const i of parsed.error.issues) {
+          const key = FIELD_OF[String(i.path[0])] ?? String(i.path[0] ?? "tag");
+          if (!(key in all)) all[key] = i.message;
+        }
+      }
+      if (Object.keys(all).length === 0) return { values, errors: {} };
+      return { values: {}, errors: Object.fromEntries(Object.entries(all).map(([k, message]) => [k, { type: "validate", message }])) };
+    },
+    [unitSystem],
+  );
+  const { register, handleSubmit, watch, reset, setError, getValues, setFocus, formState } = useForm<MemberFormValues>({
+    defaultValues: { ...EMPTY_MEMBER_FORM, tag: prefillTag },
+    resolver,
+    shouldFocusError: true,
+  });
+  const [photos, setPhotos] = useState<UploadedPhoto[]>([]);
+  const [uploading, setUploading] = useState(false);
+  const [loaded, setLoaded] = useState(false);
+  const [restored, setRestored] = useState<string | null>(null);
+  const [formError, setFormError] = useState<string | null>(null);
+  const [saved, setSaved] = useState<Saved | null>(null);
+  const [uploaderKey, setUploaderKey] = useState(0);
+  const photosRef = useRef(photos);
+  photosRef.current = photos;
+  const resultRef = useRef<HTMLHeadingElement>(null);
+
+  // Restore a draft left by a reload, a lost connection or a flat battery.
+  useEffect(() => {
+    const d = readDraft(siteId);
+    if (d) {
+      reset({ ...EMPTY_MEMBER_FORM, ...d.values, tag: d.values.tag || prefillTag });
+      setPhotos(d.photos ?? []);
+      setRestored(d.savedAt);
+    }
+    setLoaded(true);
+  }, [siteId, prefillTag, reset]);
+
+  const saveDraft = useCallback(() => {
+    try {
+      const draft: Draft = { values: getValues(), photos: photosRef.current, savedAt: new Date().toISOString() };
+      window.localStorage.setItem(draftKey(siteId), JSON.stringify(draft));
+    } catch {
+      /* storage full or blocked: the form itself still holds the values */
+    }
+  }, [getValues, siteId]);
+
+  useEffect(() => {
+    if (!loaded) return;
+    const sub = watch(() => saveDraft());
+    return () => sub.unsubscribe();
+  }, [watch, saveDraft, loaded]);
+
+  const onPhotos = useCallback(
+    (ready: UploadedPhoto[], busy: boolean) => {
+      setPhotos(ready);
+      photosRef.current = ready;
+      setUploading(busy);
+      if (loaded) saveDraft();
+    },
+    [loaded, saveDraft],
+  );
+
+  function discardDraft() {
+    window.localStorage.removeItem(draftKey(siteId));
+    reset({ ...EMPTY_MEMBER_FORM, tag: prefillTag });
+    setPhotos([]);
+    setUploaderKey((k) => k + 1);
+    setRestored(null);
+  }
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(null);
+    saveDraft();
+    const { input } = toMemberInput(values, unitSystem);
+    const r = await apiJson<Saved>(`/api/v1/sites/${siteId}/members`, {
+      body: { ...input, photoIds: photos.map((p) => p.photoId), submit: values.submit },
+    });
+    if (!r.ok) {
+      const fields = Object.entries(r.error.fields);
+      let first: keyof MemberFormValues | null = null;
+      for (const [k, message] of fields) {
+        const key = (FIELD_OF[k] ?? k) as keyof MemberFormValues;
+        if (key in EMPTY_MEMBER_FORM) {
+          setError(key, { type: "server", message });
+          first ??= key;
+        }
+      }
+      const other = fields.filter(([k]) => !((FIELD_OF[k] ?? k) in EMPTY_MEMBER_FORM)).map(([, m]) => m);
+      setFormError(other.length ? other.join(" ") : fields.length ? "Some values need attention; see the fields marked below. Nothing was saved yet." : r.error.message);
+      if (first && first !== "submit") setFocus(first);
+      return;
+    }
+    window.localStorage.removeItem(draftKey(siteId));
+    setRestored(null);
+    setSaved(r.data);
+    requestAnimationFrame(() => resultRef.current?.focus());
+  });
+
+  function logAnother() {
+    const keep = getValues();
+    reset({ ...EMPTY_MEMBER_FORM, zoneId: keep.zoneId, schemeId: keep.schemeId, memberTypeId: keep.memberTypeId, endConditions: keep.endConditions, loadSource: keep.loadSource, spacingX: keep.spacingX, spacingY: keep.spacingY });
+    setPhotos([]);
+    setUploaderKey((k) => k + 1);
+    setSaved(null);
+    requestAnimationFrame(() => setFocus("tag"));
+  }
+
+  if (saved) {
+    return (
+      <div className="flex flex-col gap-4">
+        <h2 ref={resultRef} tabIndex={-1} className="text-xl font-bold">
+          {saved.member.tag} saved as {saved.member.status === "submitted" ? "submitted" : "a draft"}
+        </h2>
+        <CheckResult check={saved.check} loadN={saved.member.loadN} forceUnit={unitSystem === "us" ? "kip" : "kN"} />
+        <Link href={`/sites/${siteId}/members/${saved.member.id}`} className={buttonClass("primary", "w-full")}>
+          Open the member page
+        </Link>
+        <Button type="button" variant="secondary" className="w-full" onClick={logAnother}>
+          <Icon name="add" /> Log another member
+        </Button>
+      </div>
+    );
+  }
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="Log a member">
+      {restored ? (
+        <div role="status" className="flex flex-wrap items-center justify-between gap-2 rounded-lg border-2 border-brand bg-brand-soft p-3">
+          <span className="font-semibold">Your unsaved entry was restored.</span>
+          <button type="button" className="min-h-touch rounded-lg px-3 font-semibold text-brand underline" onClick={discardDraft}>
+            Discard it
+          </button>
+        </div>
+      ) : null}
+      <MemberFields register={register} errors={formState.errors} watch={watch} unitSystem={unitSystem} zones={zones} schemes={schemes} types={types} />
+      {loaded ? <PhotoUploader key={uploaderKey} presignPath={`/api/v1/sites/${siteId}/photos`} initial={photos} onChange={onPhotos} /> : null}
+      <label className="flex min-h-touch items-start gap-3 rounded-lg border-2 border-ink/20 bg-paper-raised p-3">
+        <input type="checkbox" className="mt-1 h-5 w-5" aria-describedby={formState.errors.submit ? "submit-error" : undefined} {...register("submit")} />
+        <span>
+          <span className="font-semibold">Submit it for a permit if it passes</span>
+          <span className="block text-sm text-ink-soft">Otherwise it is saved as a draft. A failing member cannot be submitted.</span>
+        </span>
+      </label>
+      {formState.errors.submit ? (
+        <p id="submit-error" role="alert" className="flex items-start gap-2 rounded-lg border-2 border-bad bg-bad-soft p-3 font-semibold text-bad">
+          <Icon name="bad" className="mt-0.5 h-5 w-5 shrink-0" /> {formState.errors.submit.message}
+        </p>
+      ) : null}
+      {formError ? (
+        <p role="alert" className="flex items-start gap-2 rounded-lg border-2 border-bad bg-bad-soft p-3 font-semibold text-bad">
+          <Icon name="bad" className="mt-0.5 h-5 w-5 shrink-0" /> {formError}
+        </p>
+      ) : null}
+      <div className="sticky bottom-20 z-10 md:bottom-2">
+        <Button type="submit" className="w-full text-lg shadow-lg" disabled={formState.isSubmitting || uploading}>
+          {formState.isSubmitting ? "Saving and checking…" : uploading ? "Waiting for photos…" : "Save and check"}
+        </Button>
+      </div>
+    </form>
+  );
+}

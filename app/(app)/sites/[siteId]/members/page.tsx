@@ -1,0 +1,29 @@
+import type { Metadata } from "next";
+import { Suspense } from "react";
+import { CautionNotice } from "@/components/caution-notice";
+import { getRegisterFilterOptions } from "@/db/queries/member-list";
+import { loadSitePage } from "@/lib/auth/site-page";
+import { RegisterView } from "./register-view";
+
+export const metadata: Metadata = { title: "Register" };
+
+export default async function RegisterPage({ params }: { params: Promise<{ siteId: string }> }) {
+  const { siteId } = await params;
+  const { site, may } = await loadSitePage(siteId);
+  const options = await getRegisterFilterOptions({ siteId: site.id, organisationId: site.organisationId });
+  return (
+    <div className="flex flex-col gap-4">
+      <Suspense fallback={<p className="text-ink-soft">Loading the register…</p>}>
+        <RegisterView
+          siteId={site.id}
+          siteName={site.name}
+          unitSystem={site.unitSystem}
+          options={options}
+          canImport={may("importMembers")}
+          canLog={may("logMember")}
+        />
+      </Suspense>
+      <CautionNotice compact />
+    </div>
+  );
+}

@@ -1,0 +1,34 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { Forbidden } from "@/components/forbidden";
+import { getScheme } from "@/db/queries/schemes";
+import { loadSitePage } from "@/lib/auth/site-page";
+import { isUuid } from "@/lib/authz";
+import { presignGet } from "@/lib/storage";
+import { SchemeFiles } from "../scheme-files";
+import { SchemeForm } from "../scheme-form";
+
+export const metadata: Metadata = { title: "Scheme" };
+
+export default async function SchemePage({ params }: { params: Promise<{ siteId: string; schemeId: string }> }) {
+  const { siteId, schemeId } = await params;
+  const { site, may } = await loadSitePage(siteId);
+  if (!may("manageSchemes")) return <Forbidden what="Schemes are published by temporary works designers and coordinators." />;
+  if (!isUuid(schemeId)) notFound();
+  const s = await getScheme({ siteId: site.id, schemeId });
+  if (!s) notFound();
+  const [drawingUrl, certificateUrl] = await Promise.all([
+    s.drawingKey ? presignGet(s.drawingKey, 3600, `${s.reference}-drawing`) : null,
+    s.certificateKey ? presignGet(s.certificateKey, 3600, `${s.reference}-check-certificate`) : null,
+  ]);
+  return (
+    <div className="mx-auto flex max-w-2xl flex-col gap-4">
+      <h1 className="text-2xl font-bold">{s.reference} — {s.title}</h1>
+      <SchemeFiles siteId={site.id} schemeId={s.id} drawingUrl={drawingUrl} certificateUrl={certificateUrl} canEdit />
+      <SchemeForm
+        siteId={site.id}
+        existing={{ ...s, validFrom: s.validFrom?.toISOString() ?? null, validUntil: s.validUntil?.toISOString() ?? null }}
+      />
+    </div>
+  );
+}

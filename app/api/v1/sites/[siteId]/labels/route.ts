@@ -1,0 +1,65 @@
+// GET (the register's filters) or POST { memberIds } → a PDF sheet of QR tag labels.
+import { getMembersByIds, listMembers, type MemberListItem } from "@/db/queries/member-list";
+import { apiHandler, readJson } from "@/lib/api";
+import { requireApiUser } from "@/lib/auth";
+import { assertSitePermission } from "@/lib/authz";
+import { env } from "@/lib/env";
+import { fieldErrorsFromZod, ValidationError } from "@/lib/errors";
+import { renderLabelSheet } from "@/lib/pdf/labels";
+import { labelsRequestSchema, MAX_LABELS } from "@/lib/validations/labels";
+import { memberListQuerySchema, searchParamsToQuery } from "@/lib/validations/member-list";
+
+type Site = { id: string; name: string; code: string };
+
+async function pdfResponse(site: Site, items: MemberListItem[]) {
+  const pdf = await renderLabelSheet({
+    siteId: site.id,
+    siteName: site.name,
+    siteCode: site.code,
+    appUrl: env.APP_URL,
+    members: items.map((m) => ({ id: m.id, tag: m.tag, typeName: m.type.name, zoneName: m.zone?.name ?? null })),
+  });
+  const name = `${site.code}-labels-${items.length}.pdf`.replace(/[^A-Za-z0-9._-]/g, "_");
+  return new Response(new Uint8Array(pdf), {
+    headers: {
+      "content-type": "application/pdf",
+      "content-disposition": `inline; filename="${name}"`,
+      "cache-control": "private, no-store",
+    },
+  });
+}
+
+export const GET = apiHandler<{ siteId: string }>(async (req, { params }) => {
+  const user = await requireApiUser();
+  const { site } = await assertSitePermission(user, params.siteId, "viewSite");
+  const query = searchParamsToQuery(new URL(req.url).searchParams);
+  delete query.cursor;
+  delete query.limit;
+  const parsed = memberListQuerySchema.safeParse(query);
+  if (!parsed.success) throw new ValidationError(fieldErrorsFromZod(parsed.error.issues), "Some query values need attention.");
+  const { sort, dir, limit: _limit, cursor: _cursor, ...filters } = parsed.data;
+  const page = await listMembers({ siteId: site.id, filters, sort, dir, limit: MAX_LABELS });
+  if (page.items.length === 0) throw new ValidationError({ _: "No member matches these filters, so there is no label to print." }, "No member matches these filters.");
+  if (page.nextCursor)
+    throw new ValidationError(
+      { _: `${page.total ?? "More than " + MAX_LABELS} members match; a sheet holds at most ${MAX_LABELS} labels. Narrow the filters or choose members.` },
+      `Too many members for one label sheet (at most ${MAX_LABELS}).`,
+    );
+  return pdfResponse(site, page.items);
+});
+
+export const POST = apiHandler<{ siteId: string }>(async (req, { params }) => {
+  const user = await requireApiUser();
+  const { site } = await assertSitePermission(user, params.siteId, "viewSite");
+  const parsed = labelsRequestSchema.safeParse(await readJson(req));
+  if (!parsed.success) throw new ValidationError(fieldErrorsFromZod(parsed.error.issues));
+  const ids = [...new Set(parsed.data.memberIds)];
+  const items = await getMembersByIds({ siteId: site.id, ids });
+  if (items.length !== ids.length) {
+    const missing = ids.length - items.length;
+    throw new ValidationError({
+      memberIds: `${missing} of the chosen member${missing === 1 ? " is" : "s are"} not on this site's register (deleted, or from another site).`,
+    });
+  }
+  return pdfResponse(site, items);
+});

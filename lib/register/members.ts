@@ -1,0 +1,419 @@
+// The register's use cases: log a member, edit it, and re-check every member of a type. Each runs
+// the engine on the server and stores the member, its check snapshot and an audit event in one
+// transaction, so the record always shows what was known when.
+import "server-only";
+import { db, type Tx } from "@/db";
+import { recordAudit } from "@/db/queries/audit";
+import { insertCheck, insertChecks } from "@/db/queries/checks";
+import { getMemberType } from "@/db/queries/member-types";
+import {
+  getMemberForUpdate, getMemberForUser, getMemberIdByTag, getMemberView, insertMember, listMembersOfTypeForCheck,
+  setLatestChecks, updateMemberRow, type MemberView,
+} from "@/db/queries/members";
+import { attachPhotos, getPhotosByIds } from "@/db/queries/photos";
+import { getScheme } from "@/db/queries/schemes";
+import type { SessionUser } from "@/db/queries/users";
+import { getZone } from "@/db/queries/zones";
+import type { Member, MemberType } from "@/db/schema";
+import { auditEvents } from "@/db/schema";
+import { assertSitePermission, getSiteAccess } from "@/lib/authz";
+import { fieldErrorsFromZod, ForbiddenError, NotFoundError, ValidationError, type FieldErrors } from "@/lib/errors";
+import { isUuid } from "@/lib/authz";
+import { rolesAllowPure } from "@/lib/permissions";
+import { MEMBER_STATUS_LABELS } from "@/lib/labels";
+import { CHECK_FIELDS, EDITABLE_STATUSES, memberCreateSchema, memberPatchSchema, memberStateSchema } from "@/lib/validations/member";
+import { deriveSlabLoad, type SlabLoadInfo } from "./slab-load";
+import { runCheck, type CheckOutcome } from "./run-check";
+
+export type { MemberView, SessionUser, Tx };
+
+export type CheckView = {
+  id: string;
+  capacityN: number | null;
+  utilisation: number | null;
+  pass: boolean;
+  method: string;
+  basis: string;
+  /** Factor applied to the working load before comparing it with the capacity, and why. */
+  loadFactor: number;
+  loadFactorSource: string;
+  /** The engine's statement of what the capacity is compared with. */
+  loadBasis: string | null;
+  warnings: string[];
+  errors?: { field: string; message: string }[];
+  engineVersion: string;
+  createdAt: Date;
+};
+
+type SiteForCheck = { id: string; organisationId: string; designCode: "en1993" | "aisc360-lrfd" | "aisc360-asd"; unitSystem: "si" | "us" };
+
+export function checkView(row: {
+  id: string;
+  capacityN: number | null;
+  utilisation: number | null;
+  pass: boolean;
+  method: string;
+  inputs: Record<string, unknown>;
+  result: Record<string, unknown>;
+  engineVersion: string;
+  createdAt: Date;
+}): CheckView {
+  const result = row.result as { ok?: boolean; warnings?: string[]; errors?: { field: string; message: string }[]; loadBasis?: string; basis?: string };
+  const inputs = row.inputs as { basis?: string; loadFactor?: number; loadFactorSource?: string; slabLoad?: { warnings?: string[] } };
+  const warnings = [...(result.warnings ?? []), ...(inputs.slabLoad?.warnings ?? [])];
+  return {
+    id: row.id,
+    capacityN: row.capacityN,
+    utilisation: row.utilisation,
+    pass: row.pass,
+    method: row.method,
+    basis: String(result.basis ?? inputs.basis ?? ""),
+    loadFactor: Number(inputs.loadFactor ?? 1),
+    loadFactorSource: String(inputs.loadFactorSource ?? ""),
+    loadBasis: result.loadBasis ?? null,
+    warnings,
+    ...(result.ok === false ? { errors: result.errors ?? [] } : {}),
+    engineVersion: row.engineVersion,
+    createdAt: row.createdAt,
+  };
+}
+
+/** A sentence saying why a check does not pass, for a refusal or a status line. */
+export function failingReason(outcome: { capacityN: number | null; utilisation: number | null; result: Record<string, unknown> }): string {
+  const r = outcome.result as { ok?: boolean; errors?: { message: string }[] };
+  if (r.ok === false) return `The capacity check could not be completed: ${(r.errors ?? []).map((e) => e.message).join(" ") || "the engine refused the inputs."}`;
+  const pct = outcome.utilisation == null ? "?" : Math.round(outcome.utilisation * 100);
+  return `The member fails its capacity check (utilisation ${pct} %, over 100 %).`;
+}
+
+function typeRangeError(type: Pick<MemberType, "minExtensionMm" | "maxExtensionMm" | "kind" | "name">, extensionMm: number): string | null {
+  // Only a telescopic prop cannot physically sit outside its range: outside it the number is a typo.
+  // A strut longer than its supplier's table exists; the check then refuses it and it shows failing.
+  if (type.kind !== "en1065-prop") return null;
+  const { minExtensionMm: lo, maxExtensionMm: hi } = type;
+  if ((lo != null && extensionMm < lo) || (hi != null && extensionMm > hi)) {
+    return `${type.name} extends from ${lo ?? "?"} to ${hi ?? "?"} mm; ${Math.round(extensionMm)} mm is outside that range. Measure again, or choose the right type.`;
+  }
+  return null;
+}
+
+type Resolved = {
+  type: MemberType;
+  zone: { id: string; name: string } | null;
+  scheme: Awaited<ReturnType<typeof getScheme>> | null;
+  loadN: number;
+  slab: SlabLoadInfo | null;
+};
+
+type MemberState = {
+  zoneId?: string | null;
+  schemeId?: string | null;
+  memberTypeId: string;
+  extensionMm: number;
+  loadSource: "direct" | "slab";
+  loadN?: number;
+  spacingXMm?: number | null;
+  spacingYMm?: number | null;
+};
+
+/** Resolves the references of a member (same site / organisation) and its load; field errors otherwise. */
+async function resolveRefs(site: SiteForCheck, v: MemberState, tx: Tx | typeof db, currentTypeId?: string): Promise<Resolved> {
+  const errors: FieldErrors = {};
+  const [zone, scheme, type] = await Promise.all([
+    v.zoneId ? getZone({ siteId: site.id, zoneId: v.zoneId }, tx) : Promise.resolve(null),
+    v.schemeId ? getScheme({ siteId: site.id, schemeId: v.schemeId }, tx) : Promise.resolve(null),
+    // A member may keep an archived type it already had; new choices must be current.
+    getMemberType({ organisationId: site.organisationId, memberTypeId: v.memberTypeId, includeArchived: v.memberTypeId === currentTypeId }, tx),
+  ]);
+  if (v.zoneId && !zone) errors.zoneId = "That zone is not on this site; choose one from the list.";
+  if (v.schemeId && !scheme) errors.schemeId = "That scheme is not on this site; choose one from the list.";
+  if (!type) errors.memberTypeId = "That member type is not in your organisation's library; choose one from the list.";
+  if (type) {
+    const rangeError = typeRangeError(type, v.extensionMm);
+    if (rangeError) errors.extensionMm = rangeError;
+  }
+  let loadN = v.loadN ?? NaN;
+  let slab: SlabLoadInfo | null = null;
+  if (v.loadSource === "slab" && scheme) {
+    const derived = deriveSlabLoad(scheme, v.spacingXMm ?? NaN, v.spacingYMm ?? NaN);
+    if (!derived.ok) Object.assign(errors, derived.fields);
+    else {
+      slab = derived.info;
+      loadN = derived.info.loadPerMemberN;
+    }
+  }
+  if (Object.keys(errors).length) throw new ValidationError(errors);
+  return { type: type!, zone, scheme, loadN, slab };
+}
+
+function checkRow(outcome: CheckOutcome, slab: SlabLoadInfo | null) {
+  return {
+    method: outcome.method,
+    inputs: slab ? { ...outcome.inputs, slabLoad: slab } : outcome.inputs,
+    result: outcome.result,
+    capacityN: outcome.capacityN,
+    utilisation: outcome.utilisation,
+    pass: outcome.pass,
+    engineVersion: outcome.engineVersion,
+  };
+}
+
+/** What an audit row keeps of a member: its fields, without the bookkeeping timestamps. */
+function auditMember(m: Member) {
+  const { createdAt: _c, updatedAt: _u, ...rest } = m;
+  return rest;
+}
+
+function isUniqueViolation(e: unknown) {
+  const code = (e as { code?: string; cause?: { code?: string } })?.code ?? (e as { cause?: { code?: string } })?.cause?.code;
+  return code === "23505";
+}
+
+export async function createMember(args: {
+  user: SessionUser;
+  siteId: string;
+  input: unknown;
+  tx?: Tx;
+  source?: "form" | "api" | "import";
+}): Promise<{ member: MemberView; check: CheckView }> {
+  const { user, siteId, source = "api" } = args;
+  const { site } = await assertSitePermission(user, siteId, "logMember");
+  const parsed = memberCreateSchema.safeParse(args.input);
+  if (!parsed.success) throw new ValidationError(fieldErrorsFromZod(parsed.error.issues));
+  const input = parsed.data;
+
+  const work = async (tx: Tx) => {
+    const ref = await resolveRefs(site, input, tx);
+    const errors: FieldErrors = {};
+    if (await getMemberIdByTag({ siteId: site.id, tag: input.tag }, tx)) {
+      errors.tag = `${input.tag} is already on this site's register; use another tag or open that member to edit it.`;
+    }
+    const photoIds = [...new Set(input.photoIds ?? [])];
+    if (photoIds.length) {
+      const found = await getPhotosByIds({ siteId: site.id, photoIds }, tx);
+      const byId = new Map(found.map((p) => [p.id, p]));
+      for (const id of photoIds) {
+        const p = byId.get(id);
+        if (!p) errors.photoIds = "One of the photos was not uploaded to this site; upload it again.";
+        else if (p.memberId) errors.photoIds = "One of the photos already belongs to another member.";
+        else if (p.status !== "ready") errors.photoIds = p.status === "rejected" ? "One of the photos was refused; remove it and take it again." : "One of the photos has not finished uploading; wait for it or retry it.";
+      }
+    }
+    if (Object.keys(errors).length) throw new ValidationError(errors);
+
+    const outcome = runCheck(ref.type, { extensionMm: input.extensionMm, endConditions: input.endConditions, loadN: ref.loadN }, site);
+    if (input.submit && !outcome.pass) {
+      throw new ValidationError({ submit: `${failingReason(outcome)} A failing member cannot be submitted; save it as a draft and correct it.` }, "A failing member cannot be submitted.");
+    }
+    let member: Member;
+    try {
+      member = await insertMember(
+        {
+          siteId: site.id,
+          tag: input.tag,
+          zoneId: ref.zone?.id ?? null,
+          schemeId: ref.scheme?.id ?? null,
+          memberTypeId: ref.type.id,
+          extensionMm: input.extensionMm,
+          endConditions: input.endConditions,
+          spacingXMm: input.spacingXMm ?? null,
+          spacingYMm: input.spacingYMm ?? null,
+          loadSource: input.loadSource,
+          loadN: ref.loadN,
+          status: input.submit ? "submitted" : "draft",
+          notes: input.notes ?? null,
+          capacityN: outcome.capacityN,
+          utilisation: outcome.utilisation,
+          checkPass: outcome.pass,
+          installedBy: user.id,
+          installedAt: new Date(),
+          createdBy: user.id,
+        },
+        tx,
+      );
+    } catch (e) {
+      if (isUniqueViolation(e)) throw new ValidationError({ tag: `${input.tag} is already on this site's register; use another tag.` });
+      throw e;
+    }
+    const check = await insertCheck({ memberId: member.id, reason: "logged", createdBy: user.id, ...checkRow(outcome, ref.slab) }, tx);
+    member = await updateMemberRow({ memberId: member.id, values: { latestCheckId: check.id } }, tx);
+    const attached = await attachPhotos({ siteId: site.id, memberId: member.id, photoIds }, tx);
+    if (attached !== photoIds.length) throw new ValidationError({ photoIds: "One of the photos was attached elsewhere meanwhile; upload it again." });
+    await recordAudit(
+      {
+        organisationId: site.organisationId,
+        siteId: site.id,
+        actorId: user.id,
+        action: "member.created",
+        entityType: "member",
+        entityId: member.id,
+        after: { ...auditMember(member), source, photoIds, check: { id: check.id, capacityN: check.capacityN, utilisation: check.utilisation, pass: check.pass, method: check.method } },
+      },
+      tx,
+    );
+    const view = await getMemberView({ memberId: member.id }, tx);
+    return { member: view!, check: checkView(check) };
+  };
+  return args.tx ? work(args.tx) : db.transaction(work);
+}
+
+/** Loads a member the user may see, or 404 (another organisation, no role on its site, malformed id). */
+export async function loadMemberForUser(user: SessionUser, memberId: string) {
+  if (!isUuid(memberId)) throw new NotFoundError("That member");
+  const member = await getMemberForUser({ memberId, organisationId: user.organisationId });
+  if (!member) throw new NotFoundError("That member");
+  let access;
+  try {
+    access = await getSiteAccess(user, member.siteId);
+  } catch (e) {
+    if (e instanceof NotFoundError) throw new NotFoundError("That member");
+    throw e;
+  }
+  return { member, ...access };
+}
+
+/** Unknown keys in a patch are named one by one rather than as one anonymous error. */
+function patchErrors(issues: { code?: string; keys?: string[]; path: PropertyKey[]; message: string }[]): FieldErrors {
+  const out: FieldErrors = {};
+  for (const i of issues) {
+    if (i.code === "unrecognized_keys" && i.keys) for (const k of i.keys) out[k] = `${k} cannot be changed here (it is not a field of a member, or it is set by the system).`;
+  }
+  return { ...fieldErrorsFromZod(issues.filter((i) => i.code !== "unrecognized_keys")), ...out };
+}
+
+export async function updateMember(args: {
+  user: SessionUser;
+  memberId: string;
+  input: unknown;
+}): Promise<{ member: MemberView; check: CheckView | null }> {
+  const { user, memberId } = args;
+  const { site, roles } = await loadMemberForUser(user, memberId);
+  if (!rolesAllowPure(roles, "editMember")) throw new ForbiddenError("Your role on this site does not allow editing members.");
+  const parsed = memberPatchSchema.safeParse(args.input);
+  if (!parsed.success) throw new ValidationError(patchErrors(parsed.error.issues));
+  const patch = parsed.data;
+
+  return db.transaction(async (tx) => {
+    const before = (await getMemberForUpdate({ memberId }, tx))!;
+    const merged = {
+      tag: patch.tag ?? before.tag,
+      zoneId: patch.zoneId !== undefined ? patch.zoneId : before.zoneId,
+      schemeId: patch.schemeId !== undefined ? patch.schemeId : before.schemeId,
+      memberTypeId: patch.memberTypeId ?? before.memberTypeId,
+      extensionMm: patch.extensionMm ?? before.extensionMm,
+      endConditions: patch.endConditions ?? before.endConditions,
+      loadSource: patch.loadSource ?? before.loadSource,
+      loadN: patch.loadN ?? before.loadN,
+      spacingXMm: patch.spacingXMm !== undefined ? patch.spacingXMm : before.spacingXMm,
+      spacingYMm: patch.spacingYMm !== undefined ? patch.spacingYMm : before.spacingYMm,
+      notes: patch.notes !== undefined ? patch.notes : before.notes,
+    };
+    const state = memberStateSchema.safeParse(merged);
+    if (!state.success) throw new ValidationError(fieldErrorsFromZod(state.error.issues));
+    const v = state.data;
+
+    const errors: FieldErrors = {};
+    if (v.tag.toLowerCase() !== before.tag.toLowerCase()) {
+      const other = await getMemberIdByTag({ siteId: site.id, tag: v.tag }, tx);
+      if (other && other !== memberId) errors.tag = `${v.tag} is already on this site's register; use another tag.`;
+    }
+    if (patch.status !== undefined && patch.status !== before.status && !(EDITABLE_STATUSES as readonly string[]).includes(patch.status)) {
+      errors.status = `${MEMBER_STATUS_LABELS[patch.status]} is set by a permit, not by editing; choose ${EDITABLE_STATUSES.map((s) => MEMBER_STATUS_LABELS[s]).join(", ")}.`;
+    }
+    if (Object.keys(errors).length) throw new ValidationError(errors);
+
+    const touched = CHECK_FIELDS.some((f) => patch[f] !== undefined && patch[f] !== before[f]);
+    const ref = await resolveRefs(site, v, tx, before.memberTypeId);
+    let check: CheckView | null = null;
+    let pass = before.checkPass ?? false;
+    const values: Partial<Member> = {
+      tag: v.tag,
+      zoneId: ref.zone?.id ?? null,
+      schemeId: ref.scheme?.id ?? null,
+      memberTypeId: ref.type.id,
+      extensionMm: v.extensionMm,
+      endConditions: v.endConditions,
+      loadSource: v.loadSource,
+      loadN: ref.loadN,
+      spacingXMm: v.spacingXMm ?? null,
+      spacingYMm: v.spacingYMm ?? null,
+      notes: v.notes ?? null,
+    };
+    let outcome: CheckOutcome | null = null;
+    if (touched || ref.loadN !== before.loadN) {
+      outcome = runCheck(ref.type, { extensionMm: v.extensionMm, endConditions: v.endConditions, loadN: ref.loadN }, site);
+      pass = outcome.pass;
+    }
+    if (patch.status !== undefined && patch.status !== before.status) {
+      if (patch.status === "submitted" && !pass) {
+        const reason = outcome ? failingReason(outcome) : "The member fails its latest capacity check.";
+        throw new ValidationError({ status: `${reason} A failing member cannot be submitted.` }, "A failing member cannot be submitted.");
+      }
+      values.status = patch.status;
+    }
+    if (outcome) {
+      const row = await insertCheck({ memberId, reason: "edited", createdBy: user.id, ...checkRow(outcome, ref.slab) }, tx);
+      Object.assign(values, { latestCheckId: row.id, capacityN: row.capacityN, utilisation: row.utilisation, checkPass: row.pass });
+      check = checkView(row);
+    }
+    const after = await updateMemberRow({ memberId, values }, tx);
+    const changed = Object.keys(values).filter((k) => JSON.stringify(before[k as keyof Member]) !== JSON.stringify(after[k as keyof Member]));
+    if (changed.length) {
+      const pick = (m: Member) => Object.fromEntries(changed.map((k) => [k, m[k as keyof Member]]));
+      await recordAudit(
+        {
+          organisationId: site.organisationId,
+          siteId: site.id,
+          actorId: user.id,
+          action: outcome ? "member.edited_and_rechecked" : "member.edited",
+          entityType: "member",
+          entityId: memberId,
+          before: pick(before),
+          after: { ...pick(after), ...(check ? { check: { id: check.id, capacityN: check.capacityN, utilisation: check.utilisation, pass: check.pass } } : {}) },
+        },
+        tx,
+      );
+    }
+    const view = await getMemberView({ memberId }, tx);
+    return { member: view!, check };
+  });
+}
+
+/**
+ * Re-checks every member of a type (after the type changed) inside the caller's transaction:
+ * a new check per member, the member's latest result updated, and an audit row per member.
+ * Returns how many members were re-checked.
+ */
+export async function recheckMembersOfType(args: { user: SessionUser; memberTypeId: string; tx: Tx; reason: string }): Promise<number> {
+  const { user, memberTypeId, tx, reason } = args;
+  const type = await getMemberType({ organisationId: user.organisationId, memberTypeId, includeArchived: true }, tx);
+  if (!type) throw new NotFoundError("That member type");
+  const rows = await listMembersOfTypeForCheck({ memberTypeId }, tx);
+  const mine = rows.filter((r) => r.siteOrganisationId === user.organisationId);
+  if (mine.length === 0) return 0;
+  const outcomes = mine.map((m) => {
+    const outcome = runCheck(type, { extensionMm: m.extensionMm, endConditions: m.endConditions, loadN: m.loadN }, { designCode: m.siteDesignCode, unitSystem: m.siteUnitSystem });
+    // Keep the slab working of the member's previous check out of it: the load itself is unchanged.
+    return { m, outcome };
+  });
+  const ids = await insertChecks(
+    outcomes.map(({ m, outcome }) => ({ memberId: m.id, reason, createdBy: user.id, ...checkRow(outcome, null) })),
+    tx,
+  );
+  await setLatestChecks(
+    outcomes.map(({ m, outcome }, i) => ({ memberId: m.id, checkId: ids[i]!, capacityN: outcome.capacityN, utilisation: outcome.utilisation, pass: outcome.pass })),
+    tx,
+  );
+  const audits = outcomes.map(({ m, outcome }, i) => ({
+    organisationId: user.organisationId,
+    siteId: m.siteId,
+    actorId: user.id,
+    action: "member.rechecked",
+    entityType: "member",
+    entityId: m.id,
+    before: { latestCheckId: m.latestCheckId, capacityN: m.capacityN, utilisation: m.utilisation, checkPass: m.checkPass },
+    after: { latestCheckId: ids[i], capacityN: outcome.capacityN, utilisation: outcome.utilisation, checkPass: outcome.pass, reason, memberTypeRevision: type.revision },
+  }));
+  for (let i = 0; i < audits.length; i += 1000) await tx.insert(auditEvents).values(audits.slice(i, i + 1000));
+  return mine.length;
+}

@@ -1,0 +1,115 @@
+// One schema for logging and editing a member: the phone form validates with it and the server
+// parses the same input again. Values are SI (mm, N); the form converts ft-in and kN at its edge.
+import { z } from "zod";
+import { endCondition, loadSource, memberStatus } from "@/db/schema";
+
+export const MAX_PHOTOS_PER_MEMBER = 20;
+/** Largest photo accepted (15 MB). */
+export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
+export const TAG_PATTERN = /^[A-Za-z0-9][A-Za-z0-9\-_./ ]*$/;
+
+const uuid = (what: string) => z.string({ error: () => `Choose ${what}.` }).uuid(`Choose ${what} from the list.`);
+
+const positive = (label: string, unit: string, max: number) =>
+  z
+    .number({ error: (i) => (i.input === undefined || i.input === null ? `Enter the ${label}.` : `The ${label} must be a number in ${unit}.`) })
+    .refine(Number.isFinite, `The ${label} must be a finite number.`)
+    .refine((v) => v > 0, `The ${label} must be more than 0 ${unit}.`)
+    .refine((v) => v <= max, `The ${label} must be at most ${max.toLocaleString("en-GB")} ${unit}; check the unit.`);
+
+export const endConditionSchema = z.enum(endCondition.enumValues, {
+  error: () => `End conditions must be one of: ${endCondition.enumValues.join(", ")}.`,
+});
+export const loadSourceSchema = z.enum(loadSource.enumValues, {
+  error: () => "Load must be given directly (direct) or derived from the scheme's slab (slab).",
+});
+export const memberStatusSchema = z.enum(memberStatus.enumValues);
+
+export const tagSchema = z
+  .string({ error: () => "Enter the member's tag (the code on its label)." })
+  .trim()
+  .min(1, "Enter the member's tag (the code on its label).")
+  .max(40, "A tag has at most 40 characters.")
+  .regex(TAG_PATTERN, "A tag starts with a letter or digit and uses only letters, digits, spaces and - _ . /");
+
+const base = {
+  tag: tagSchema,
+  zoneId: uuid("a zone").nullable().optional(),
+  schemeId: uuid("a scheme").nullable().optional(),
+  memberTypeId: uuid("the member type"),
+  extensionMm: positive("measured extension", "mm", 30_000),
+  endConditions: endConditionSchema.default("pinned-pinned"),
+  loadSource: loadSourceSchema.default("direct"),
+  loadN: positive("working load", "N", 50_000_000).optional(),
+  spacingXMm: positive("as-built spacing X", "mm", 20_000).nullable().optional(),
+  spacingYMm: positive("as-built spacing Y", "mm", 20_000).nullable().optional(),
+  notes: z.string().trim().max(2000, "Notes have at most 2000 characters.").nullable().optional(),
+};
+
+type LoadShape = { loadSource?: "direct" | "slab"; loadN?: number; spacingXMm?: number | null; spacingYMm?: number | null; schemeId?: string | null };
+
+/** Cross-field rules: a direct load needs loadN; a slab-derived load needs a scheme and both spacings. */
+function loadRules(v: LoadShape, ctx: z.RefinementCtx) {
+  if ((v.loadSource ?? "direct") === "direct") {
+    if (v.loadN === undefined) ctx.addIssue({ code: "custom", path: ["loadN"], message: "Enter the working load the member carries, or derive it from the scheme's slab." });
+    return;
+  }
+  if (!v.schemeId) ctx.addIssue({ code: "custom", path: ["schemeId"], message: "Choose the scheme whose slab this member carries to derive its load." });
+  if (v.spacingXMm == null) ctx.addIssue({ code: "custom", path: ["spacingXMm"], message: "Enter the as-built spacing X (mm) to derive the load from the slab." });
+  if (v.spacingYMm == null) ctx.addIssue({ code: "custom", path: ["spacingYMm"], message: "Enter the as-built spacing Y (mm) to derive the load from the slab." });
+}
+
+export const memberCreateSchema = z
+  .object({
+    ...base,
+    photoIds: z
+      .array(z.string().uuid("Each photo id must be the id returned by the upload."), { error: () => "photoIds must be a list of photo ids." })
+      .max(MAX_PHOTOS_PER_MEMBER, `At most ${MAX_PHOTOS_PER_MEMBER} photos per member.`)
+      .optional(),
+    /** Ask for the member to be submitted at once (allowed only when its check passes). */
+    submit: z.boolean({ error: () => "submit must be true or false." }).optional(),
+  })
+  .superRefine(loadRules);
+
+export type MemberCreateInput = z.input<typeof memberCreateSchema>;
+export type MemberCreate = z.output<typeof memberCreateSchema>;
+
+/** Statuses a person may set by editing; loaded and struck follow from permits. */
+export const EDITABLE_STATUSES = ["draft", "submitted", "out_of_service"] as const;
+
+export const memberPatchSchema = z
+  .object({
+    tag: base.tag,
+    zoneId: base.zoneId,
+    schemeId: base.schemeId,
+    memberTypeId: base.memberTypeId,
+    extensionMm: base.extensionMm,
+    endConditions: endConditionSchema,
+    loadSource: loadSourceSchema,
+    loadN: base.loadN,
+    spacingXMm: base.spacingXMm,
+    spacingYMm: base.spacingYMm,
+    notes: base.notes,
+    status: z.enum(memberStatus.enumValues, { error: () => `Status must be one of: ${EDITABLE_STATUSES.join(", ")}.` }),
+  })
+  .partial()
+  .strict();
+
+export type MemberPatch = z.output<typeof memberPatchSchema>;
+
+/** Fields whose change alters the capacity check. */
+export const CHECK_FIELDS = ["extensionMm", "loadN", "loadSource", "spacingXMm", "spacingYMm", "endConditions", "memberTypeId", "schemeId"] as const;
+
+/** The whole member after a patch, re-validated with the same rules as a new one. */
+export const memberStateSchema = z.object({ ...base }).superRefine(loadRules);
+
+export const photoPresignSchema = z.object({
+  contentType: z
+    .string({ error: () => "Give the photo's content type, e.g. image/jpeg." })
+    .regex(/^image\/[a-z0-9.+-]+$/i, "Only photos can be uploaded here (a content type starting with image/)."),
+  size: z
+    .number({ error: () => "Give the photo's size in bytes." })
+    .int("The size must be a whole number of bytes.")
+    .positive("The photo is empty (0 bytes).")
+    .max(MAX_PHOTO_BYTES, "The photo is larger than 15 MB; take it again at a lower resolution."),
+});
