@@ -1,0 +1,111 @@
+// The permit PDF: render from the database, store in S3, then release the e-mails waiting for it.
+import "server-only";
+import { db } from "@/db";
+import { releaseHeldEmails } from "@/db/queries/outbox";
+import { getPermitForUpdate, getPermitView, listPermitMembers, listPermitsAwaitingPdf, updatePermit } from "@/db/queries/permits";
+import { PERMIT_STATUS_LABELS } from "@/lib/labels";
+import { renderPermitPdf, type PermitPdfData } from "@/lib/pdf/permit";
+import { putObject } from "@/lib/storage";
+import { PERMIT_KIND_LABELS, permitNumberLabel } from "@/lib/validations/permit";
+import { fmtDateTime, fmtForce, fmtLength, fmtUtilisation, type UnitSystem } from "./format";
+import { evidenceFinding } from "./preconditions";
+import { permitUrl } from "./urls";
+
+export type PaperSize = "A4" | "LETTER";
+
+export const permitPdfKey = (siteId: string, permitId: string) => `permits/${siteId}/${permitId}.pdf`;
+
+/** Letter for sites working in US units, A4 otherwise. */
+export const defaultPaper = (units: UnitSystem): PaperSize => (units === "us" ? "LETTER" : "A4");
+
+export async function buildPermitPdfData(permitId: string): Promise<{ data: PermitPdfData; siteId: string; units: UnitSystem } | null> {
+  const v = await getPermitView({ permitId });
+  if (!v || !v.permit.issuedAt || v.permit.number == null) return null;
+  const p = v.permit;
+  const units = v.siteUnitSystem as UnitSystem;
+  const tz = v.siteTimezone;
+  const scope = await listPermitMembers({ permitId });
+  const zones = [...new Set(scope.map((m) => m.zoneName).filter((z): z is string => !!z))];
+  const schemeRefs = [...new Set(scope.map((m) => m.schemeReference).filter((s): s is string => !!s))];
+  const schemes = schemeRefs.map((ref) =>
+    ref === v.schemeReference ? `${ref} — ${v.schemeTitle} (design check category ${v.schemeCategory})` : ref,
+  );
+  const data: PermitPdfData = {
+    numberLabel: permitNumberLabel(p.kind, p.number)!,
+    kindLabel: PERMIT_KIND_LABELS[p.kind],
+    kind: p.kind,
+    statusLabel: PERMIT_STATUS_LABELS[p.status].toUpperCase(),
+    siteName: v.siteName,
+    siteCode: v.siteCode,
+    zones,
+    schemes,
+    requestedBy: v.requestedByName,
+    requestedAt: fmtDateTime(p.requestedAt, tz, units),
+    requestNote: p.requestNote,
+    issuedBy: v.approvedByName ?? "—",
+    issuedAt: fmtDateTime(p.issuedAt, tz, units),
+    validUntil: fmtDateTime(p.validUntil, tz, units),
+    conditions: p.conditions,
+    evidence: p.kind === "strike" ? evidenceFinding(p.evidence).text : null,
+    members: scope.map((m) => ({
+      tag: m.tag,
+      type: m.memberTypeName,
+      zone: m.zoneName ?? "—",
+      extension: fmtLength(m.extensionMm, units).replace(/ (mm|in)$/, ""),
+      load: fmtForce(m.loadN, units).replace(/ (kN|kip)$/, ""),
+      capacity: fmtForce(m.capacityN, units).replace(/ (kN|kip)$/, ""),
+      utilisation: fmtUtilisation(m.utilisation),
+    })),
+    units: units === "us" ? { length: "in", force: "kip" } : { length: "mm", force: "kN" },
+    permitUrl: permitUrl(p.siteId, p.id),
+    generatedAt: fmtDateTime(new Date(), tz, units),
+  };
+  return { data, siteId: p.siteId, units };
+}
+
+/** Renders a permit's PDF in the given paper size without storing it (e.g. `?size=letter`). */
+export async function renderPermitPdfNow(permitId: string, size?: PaperSize): Promise<Buffer | null> {
+  const built = await buildPermitPdfData(permitId);
+  if (!built) return null;
+  return renderPermitPdf(built.data, size ?? defaultPaper(built.units));
+}
+
+/**
+ * Renders and stores the PDF of an issued permit, sets its key and releases the e-mails held for
+ * it with the PDF attached. Safe to run twice at once: the permit row lock makes one of them the
+ * one that records the key and releases the mail. Returns the object key (null: not issued).
+ */
+export async function renderAndStorePermitPdf(permitId: string): Promise<string | null> {
+  const built = await buildPermitPdfData(permitId);
+  if (!built) return null;
+  const pdf = await renderPermitPdf(built.data, defaultPaper(built.units));
+  const key = permitPdfKey(built.siteId, permitId);
+  await putObject(key, pdf, "application/pdf");
+  await db.transaction(async (tx) => {
+    const locked = await getPermitForUpdate({ permitId }, tx);
+    if (!locked) return;
+    if (!locked.pdfKey) await updatePermit({ permitId, values: { pdfKey: key } }, tx);
+    await releaseHeldEmails(
+      { waitFor: `pdf:${permitId}`, attachments: [{ key, filename: `${built.data.numberLabel}.pdf`, contentType: "application/pdf" }] },
+      tx,
+    );
+  });
+  return key;
+}
+
+/** For the worker: issued permits whose PDF is missing (rendering failed after commit) are rendered now. */
+export async function renderPendingPermitPdfs({ limit = 10, olderThanSeconds = 20 }: { limit?: number; olderThanSeconds?: number } = {}) {
+  // The grace period leaves a PDF the issuing request is rendering right now to that request.
+  const pending = await listPermitsAwaitingPdf({ limit, olderThanSeconds });
+  let rendered = 0;
+  const failed: string[] = [];
+  for (const p of pending) {
+    try {
+      if (await renderAndStorePermitPdf(p.id)) rendered++;
+    } catch (e) {
+      failed.push(p.id);
+      console.error("[permits] PDF rendering failed", p.id, e instanceof Error ? e.message : e);
+    }
+  }
+  return { pending: pending.length, rendered, failed };
+}
