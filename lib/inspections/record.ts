@@ -1,0 +1,152 @@
+// Recording an inspection. A failed one takes the member out of service, removes it from every
+// issued permit that covers it, tells those permits' recipients and raises a "failed inspection"
+// alert — all in one transaction, so none of it happens without the rest.
+import "server-only";
+import { db } from "@/db";
+import { recordAudit } from "@/db/queries/audit";
+import {
+  attachInspectionPhotos, findPhotosForInspection, getLatestInspection, insertInspection, lockMemberForInspection,
+  removeMemberFromIssuedPermits, setMemberStatusForInspection,
+} from "@/db/queries/inspections";
+import { enqueueEmails } from "@/db/queries/outbox";
+import { renderPermitMemberRemoved } from "@/emails/alert-permit-member-removed";
+import { formatWhen, permitLabel } from "@/lib/alerts/format";
+import { raiseAlerts } from "@/lib/alerts/raise";
+import type { SessionUser } from "@/lib/auth";
+import { env } from "@/lib/env";
+import { ConflictError, NotFoundError, ValidationError } from "@/lib/errors";
+import type { InspectionInput } from "@/lib/validations/inspection";
+import { checkLabel } from "./checklist";
+import { nextDueFrom } from "./due";
+
+export async function recordInspection({ user, memberId, input, now = new Date() }: { user: SessionUser; memberId: string; input: InspectionInput; now?: Date }) {
+  return db.transaction(async (tx) => {
+    const member = await lockMemberForInspection({ memberId }, tx);
+    if (!member || member.organisationId !== user.organisationId) throw new NotFoundError("That member");
+    if (member.status === "struck")
+      throw new ConflictError("This member has been struck (removed); there is nothing to inspect. Log it again if it is back in use.");
+
+    const photoIds = input.photoIds ?? [];
+    if (photoIds.length) {
+      const found = await findPhotosForInspection({ siteId: member.siteId, memberId, photoIds }, tx);
+      const missing = photoIds.filter((id) => !found.some((f) => f.id === id));
+      if (missing.length) throw new ValidationError({ photoIds: `Photo ${missing[0]} was not found for this member, or belongs to another inspection.` });
+      const rejected = found.find((f) => f.status === "rejected");
+      if (rejected) throw new ValidationError({ photoIds: `Photo ${rejected.id} was rejected (not a usable image); take it again.` });
+    }
+
+    const previous = await getLatestInspection({ memberId }, tx);
+    const items = (input.items ?? []).map((i) => ({ check: i.check, result: i.result, ...(i.note ? { note: i.note } : {}) }));
+    const inspection = await insertInspection(
+      {
+        siteId: member.siteId,
+        memberId,
+        inspectorId: user.id,
+        result: input.result,
+        items,
+        notes: input.notes || null,
+        inspectedAt: now,
+        nextDueAt: input.result === "pass" ? nextDueFrom(now, member.inspectionIntervalDays) : null,
+      },
+      tx,
+    );
+    await attachInspectionPhotos({ memberId, inspectionId: inspection.id, photoIds }, tx);
+    const audit = { organisationId: member.organisationId, siteId: member.siteId, actorId: user.id };
+    await recordAudit(
+      { ...audit, action: "inspection.recorded", entityType: "inspection", entityId: inspection.id, after: { memberId, tag: member.tag, result: input.result, items, notes: input.notes ?? null, photoIds } },
+      tx,
+    );
+
+    let status = member.status;
+    const removedFromPermits: { id: string; label: string }[] = [];
+    if (input.result === "fail") {
+      if (member.status !== "out_of_service") {
+        await setMemberStatusForInspection({ memberId, status: "out_of_service" }, tx);
+        await recordAudit(
+          { ...audit, action: "member.status_changed", entityType: "member", entityId: memberId, before: { status: member.status }, after: { status: "out_of_service", reason: "failed inspection", inspectionId: inspection.id } },
+          tx,
+        );
+        status = "out_of_service";
+      }
+      const failed = items.filter((i) => i.result === "fail").map((i) => `${checkLabel(i.check)}${i.note ? ` (${i.note})` : ""}`);
+      const when = formatWhen(now);
+      const reason = `Failed inspection on ${when}${failed.length ? `: ${failed.join("; ")}` : ""}`.slice(0, 500);
+      const permits = await removeMemberFromIssuedPermits({ memberId, reason, now }, tx);
+      for (const p of permits) {
+        const label = permitLabel(p);
+        removedFromPermits.push({ id: p.id, label });
+        await recordAudit(
+          { ...audit, action: "permit.member_removed", entityType: "permit", entityId: p.id, before: { memberId, tag: member.tag, inScope: true }, after: { memberId, tag: member.tag, inScope: false, reason } },
+          tx,
+        );
+        const mail = renderPermitMemberRemoved({
+          siteName: member.siteName,
+          permitLabel: label.charAt(0).toUpperCase() + label.slice(1),
+          tag: member.tag,
+          inspectedAt: when,
+          inspectorName: user.name,
+          failedItems: failed,
+          notes: input.notes || null,
+          link: new URL(`/sites/${member.siteId}/permits/${p.id}`, env.APP_URL).toString(),
+        });
+        await enqueueEmails(
+          [...new Set(p.recipients)].map((to) => ({
+            siteId: member.siteId,
+            kind: "permit:member_removed",
+            toEmail: to,
+            subject: mail.subject,
+            text: mail.text,
+            html: mail.html,
+            relatedType: "permit",
+            relatedId: p.id,
+          })),
+          tx,
+        );
+      }
+      await raiseAlerts(
+        [
+          {
+            siteId: member.siteId,
+            kind: "inspection_failed",
+            subjectType: "member",
+            subjectId: memberId,
+            threshold: inspection.id,
+            title: `${member.tag} failed its inspection`,
+            body:
+              `${user.name} recorded a failed inspection of ${member.tag} on ${when}. It is now out of service` +
+              (removedFromPermits.length ? ` and has been removed from ${removedFromPermits.map((p) => p.label).join(", ")}.` : ".") +
+              (failed.length ? ` Failed: ${failed.join("; ")}.` : "") +
+              (input.notes ? ` Notes: ${input.notes}` : ""),
+            link: `/sites/${member.siteId}/members/${memberId}/inspect`,
+            createdAt: now,
+          },
+        ],
+        tx,
+      );
+    } else if (member.status === "out_of_service" && previous?.result === "fail") {
+      // Out of service because of a failed inspection: a pass returns it to service (not to any permit).
+      await setMemberStatusForInspection({ memberId, status: "submitted" }, tx);
+      await recordAudit(
+        { ...audit, action: "member.status_changed", entityType: "member", entityId: memberId, before: { status: member.status }, after: { status: "submitted", reason: "passed re-inspection", inspectionId: inspection.id } },
+        tx,
+      );
+      status = "submitted";
+    }
+
+    return {
+      inspection: {
+        id: inspection.id,
+        memberId,
+        result: inspection.result,
+        items: inspection.items,
+        notes: inspection.notes,
+        inspectedAt: inspection.inspectedAt,
+        nextDueAt: inspection.nextDueAt,
+        inspectorName: user.name,
+        photoIds,
+      },
+      member: { id: memberId, tag: member.tag, status },
+      removedFromPermits,
+    };
+  });
+}

@@ -1,0 +1,58 @@
+// One schema for recording an inspection: the phone form validates with it and the API parses
+// the same input again. A coordinator's "inspect now" trigger has its own small schema.
+import { z } from "zod";
+import { inspectionResult } from "@/db/schema";
+
+export const MAX_INSPECTION_PHOTOS = 20;
+
+const resultSchema = (what: string) =>
+  z.enum(inspectionResult.enumValues, { error: () => `${what} must be "pass" or "fail".` });
+
+export const inspectionItemSchema = z.object({
+  check: z
+    .string({ error: () => "Each checklist item needs its check (e.g. \"plumb\")." })
+    .trim()
+    .min(1, "Each checklist item needs its check (e.g. \"plumb\").")
+    .max(100, "A check name has at most 100 characters."),
+  result: resultSchema("Each checklist item's result"),
+  note: z.string({ error: () => "A note must be text." }).trim().max(500, "A note has at most 500 characters.").optional(),
+});
+
+export const inspectionSchema = z
+  .object({
+    result: resultSchema("The overall result"),
+    items: z.array(inspectionItemSchema, { error: () => "items must be a list of checklist answers." }).max(30, "At most 30 checklist items.").optional(),
+    notes: z.string({ error: () => "Notes must be text." }).trim().max(2000, "Notes have at most 2,000 characters.").optional(),
+    photoIds: z
+      .array(z.string().uuid("Each photo id must be the id of an uploaded photo."), { error: () => "photoIds must be a list of photo ids." })
+      .max(MAX_INSPECTION_PHOTOS, `At most ${MAX_INSPECTION_PHOTOS} photos per inspection.`)
+      .optional(),
+  })
+  .superRefine((v, ctx) => {
+    const items = v.items ?? [];
+    const seen = new Set<string>();
+    items.forEach((it, i) => {
+      if (seen.has(it.check)) ctx.addIssue({ code: "custom", path: ["items", i, "check"], message: `"${it.check}" is answered twice.` });
+      seen.add(it.check);
+      if (it.result === "fail" && !it.note)
+        ctx.addIssue({ code: "custom", path: ["items", i, "note"], message: "Say what is wrong when an item fails." });
+    });
+    // Safety: one failed item means the member is not fit to carry load.
+    if (v.result === "pass" && items.some((it) => it.result === "fail"))
+      ctx.addIssue({ code: "custom", path: ["result"], message: "An inspection with a failed item cannot pass; record it as failed." });
+    if (v.photoIds && new Set(v.photoIds).size !== v.photoIds.length)
+      ctx.addIssue({ code: "custom", path: ["photoIds"], message: "The same photo is listed twice." });
+  });
+
+export type InspectionInput = z.infer<typeof inspectionSchema>;
+
+export const inspectionTriggerSchema = z.object({
+  zoneId: z.string().uuid("Choose a zone from the list, or the whole site.").nullable().optional(),
+  reason: z
+    .string({ error: () => "Say why inspections are due now (e.g. high winds overnight)." })
+    .trim()
+    .min(3, "Say why inspections are due now (e.g. high winds overnight).")
+    .max(300, "A reason has at most 300 characters."),
+});
+
+export type InspectionTriggerInput = z.infer<typeof inspectionTriggerSchema>;
