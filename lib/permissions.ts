@@ -24,6 +24,10 @@ export const PERMISSIONS = {
   manageLibrary: ["designer", "admin"],
   requestPermit: ["engineer", "supervisor", "coordinator"],
   issuePermit: ["coordinator"],
+  /** Give a supervisor scope to issue permits for some zones until a date. */
+  delegatePermits: ["coordinator"],
+  /** Confirm on the ground that striking under a permit to strike is done. */
+  confirmStriking: ["supervisor", "coordinator"],
   inspect: ["engineer", "supervisor", "coordinator"],
   triggerInspections: ["coordinator"],
   viewAlerts: ALL_ROLES,

@@ -8,6 +8,9 @@ import { runCheck } from "@/lib/register/run-check";
 import {
   DEMO_MEMBER_TYPES, DEMO_ORG, DEMO_PASSWORD, DEMO_SITES, DEMO_USERS, OTHER_ORG, OTHER_SITE, OTHER_USERS,
 } from "./data";
+import { seedCertificates } from "./certificates";
+import { seedInspections } from "./inspections";
+import { seedPhotos } from "./photos";
 
 const url = process.env.DATABASE_URL ?? "postgres://postgres@127.0.0.1:55432/strutwise";
 const client = postgres(url, { max: 2, onnotice: () => {} });
@@ -181,6 +184,10 @@ export async function seed() {
       site: "orchard", zone: "ramp", scheme: null, type: "timber", prefix: "ORB-TP-", n: 3, status: "draft",
       extension: () => 2400, load: (i) => 30000 + i * 5000,
     });
+
+    await seedInspections(tx, { memberIds, inspectorId: people.engineer!.id, now });
+    await seedCertificates(tx, { designerName: people.designer!.name, now });
+    await seedPhotos(tx, { uploadedBy: people.engineer!.id, now });
 
     async function addPermit(p: {
       site: string; kind: "load" | "strike"; status: (typeof schema.permitStatus.enumValues)[number]; number: number | null;

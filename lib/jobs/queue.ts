@@ -5,6 +5,7 @@ import { env } from "@/lib/env";
 
 export const QUEUES = {
   heartbeat: "heartbeat",
+  alertDigest: "alert-digest",
 } as const;
 
 export async function startBoss(opts: { schedule?: boolean } = {}) {

@@ -2,7 +2,9 @@
 // once: outbox rows are claimed with SKIP LOCKED, and scheduled jobs are single-run by pg-boss.
 import os from "node:os";
 import { deliverDueEmails } from "./outbox";
+import { renderPendingPermitPdfs } from "@/lib/permits/pdf";
 import { QUEUES, startBoss } from "./queue";
+import { ALERT_SCAN_MS, DIGEST_CRON, DIGEST_TZ, OVERLOAD_SWEEP_MS, alertScans, dailyDigest, overloadSweep } from "./scans";
 
 const workerName = `${os.hostname()}:${process.pid}`;
 const OUTBOX_POLL_MS = Number(process.env.OUTBOX_POLL_MS ?? 2000);
@@ -31,10 +33,21 @@ async function main() {
     for (const job of jobs) console.log(`[worker ${workerName}] heartbeat ${job.id} at ${new Date().toISOString()}`);
   });
 
+  const say = (msg: string) => console.log(`[worker ${workerName}] ${msg}`);
+  await boss.schedule(QUEUES.alertDigest, DIGEST_CRON, { from: "schedule" }, { tz: DIGEST_TZ });
+  await boss.work(QUEUES.alertDigest, async () => dailyDigest(say));
+
   const stops = [
+    every(OVERLOAD_SWEEP_MS, "overload sweep", () => overloadSweep(say)),
+    every(ALERT_SCAN_MS, "alert scans", () => alertScans(say)),
     every(OUTBOX_POLL_MS, "outbox delivery", async () => {
       const r = await deliverDueEmails({ worker: workerName });
       if (r.claimed) console.log(`[worker ${workerName}] outbox: ${r.sent} sent, ${r.failed} failed`);
+    }),
+    // A permit PDF that failed to render after its issue is retried here; its e-mails wait for it.
+    every(10_000, "permit PDFs", async () => {
+      const r = await renderPendingPermitPdfs();
+      if (r.pending) console.log(`[worker ${workerName}] permit PDFs: ${r.rendered} rendered, ${r.failed.length} failed`);
     }),
   ];
   console.log(`[worker ${workerName}] started`);

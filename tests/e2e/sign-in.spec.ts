@@ -5,12 +5,12 @@ const SITE = "Wexcombe Wharf — Block B";
 
 // What each demo role should find in a site's navigation.
 const ROLE_NAV: Record<string, { has: string[]; lacks: string[] }> = {
-  "admin@demo.example": { has: ["Overview", "Calculator", "People"], lacks: [] },
-  "coordinator@demo.example": { has: ["Overview", "Calculator"], lacks: ["People"] },
-  "engineer@demo.example": { has: ["Overview", "Calculator"], lacks: ["People"] },
-  "supervisor@demo.example": { has: ["Overview", "Calculator"], lacks: ["People"] },
-  "designer@demo.example": { has: ["Overview", "Calculator"], lacks: ["People"] },
-  "manager@demo.example": { has: ["Overview", "Calculator"], lacks: ["People"] },
+  "admin@demo.example": { has: ["Overview", "Register", "Calculator", "Permits", "People", "Alerts", "Library"], lacks: ["Inspections", "Log member", "Schemes"] },
+  "coordinator@demo.example": { has: ["Overview", "Register", "Calculator", "Permits", "Alerts", "Inspections", "Log member", "Schemes"], lacks: ["People", "Library"] },
+  "engineer@demo.example": { has: ["Overview", "Register", "Calculator", "Permits", "Alerts", "Inspections", "Log member"], lacks: ["People", "Library", "Schemes"] },
+  "supervisor@demo.example": { has: ["Overview", "Register", "Calculator", "Permits", "Alerts", "Inspections", "Log member"], lacks: ["People", "Library", "Schemes"] },
+  "designer@demo.example": { has: ["Overview", "Register", "Calculator", "Permits", "Alerts", "Library", "Schemes"], lacks: ["People", "Inspections", "Log member"] },
+  "manager@demo.example": { has: ["Overview", "Register", "Calculator", "Permits", "Alerts"], lacks: ["People", "Inspections", "Log member", "Library", "Schemes"] },
 };
 
 for (const [email, nav] of Object.entries(ROLE_NAV)) {

@@ -6,6 +6,8 @@ import { getSiteCounts } from "@/db/queries/sites";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { MEMBER_STATUS_LABELS, PERMIT_STATUS_LABELS } from "@/lib/labels";
 import { ROLE_LABELS } from "@/lib/permissions";
+import { OverloadSummary } from "./alerts/overload-summary";
+import { PermitsAwaitingReview } from "./permits/review-link";
 
 export const metadata: Metadata = { title: "Site overview" };
 
@@ -55,7 +57,7 @@ async function Counts({ siteId }: { siteId: string }) {
 
 export default async function SiteOverviewPage({ params }: { params: Promise<{ siteId: string }> }) {
   const { siteId } = await params;
-  const { site, roles } = await loadSitePage(siteId);
+  const { site, roles, user, may } = await loadSitePage(siteId);
   return (
     <div className="flex flex-col gap-4">
       <div>
@@ -65,6 +67,14 @@ export default async function SiteOverviewPage({ params }: { params: Promise<{ s
           {site.address ? ` · ${site.address}` : ""} · You are: {roles.map((r) => ROLE_LABELS[r]).join(", ")}
         </p>
       </div>
+      {may("issuePermit") ? (
+        <Suspense fallback={null}>
+          <PermitsAwaitingReview siteId={site.id} />
+        </Suspense>
+      ) : null}
+      <Suspense fallback={<p className="text-ink-soft">Looking for overloaded members…</p>}>
+        <OverloadSummary siteId={site.id} userId={user.id} />
+      </Suspense>
       <Suspense fallback={<p className="text-ink-soft">Counting members and permits…</p>}>
         <Counts siteId={site.id} />
       </Suspense>
