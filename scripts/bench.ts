@@ -1,13 +1,16 @@
 // `npm run bench`: speed figures, printed as a table (speed targets live here, never in tests).
 //  1. the calculation engine (scripts/bench/engine.ts), in this process;
 //  2. the register's members list API on the 20,000-member site at 32 concurrent connections,
-//     beside a bare route handler (GET /api/v1/ping: no session, no database) in the same run.
+//     beside a bare route handler (GET /api/v1/ping: no session, no database) in the same run;
+//  3. issuing a permit to load end to end (transaction + PDF + store + queue): p95
+//     (scripts/bench/permits.ts), on the same stack.
 // Part 2 starts its own stack in a bench slot (STRUTWISE_TEST_SLOT=9 unless BENCH_SLOT says
 // otherwise: own database, ports and build folder), seeds the demo and the large site into it,
 // measures for about 10 s per row, and stops what it started.
 //
 //   npm run bench                 both parts
-//   npm run bench -- engine       the engine only;   npm run bench -- api   the API only
+//   npm run bench -- engine       the engine only;   npm run bench -- api   the API only;
+//   npm run bench -- permits      permit issue only
 import fs from "node:fs";
 import path from "node:path";
 import autocannon from "autocannon";
@@ -116,6 +119,15 @@ async function apiSection() {
     stack.ensureDatabase(p, { fresh: true });
     stack.runTsx(path.join(root, "db", "migrate.ts"), p.env);
     stack.runTsx(path.join(root, "db", "seed", "index.ts"), p.env);
+    if (want("permits")) {
+      console.log("[bench] permit issue…");
+      const { benchPermitIssue } = (await import("./bench/permits")) as {
+        benchPermitIssue: () => Promise<{ name: string; value: number; unit: string; goal?: string }[]>;
+      };
+      for (const r of await benchPermitIssue())
+        rows.push({ name: r.name, value: Number.isInteger(r.value) ? String(r.value) : r.value.toFixed(1), unit: r.unit, note: r.goal });
+    }
+    if (!want("api")) return;
     const { seedLarge, LARGE_SITE } = await import("../db/seed/large");
     const t0 = Date.now();
     const large = await seedLarge(p.env.DATABASE_URL);
@@ -155,10 +167,12 @@ async function apiSection() {
 
 try {
   if (want("engine")) await engineSection();
-  if (want("api")) await apiSection();
+  if (want("api") || want("permits")) await apiSection();
   printTable();
 } catch (e) {
   printTable();
   console.error(`[bench] ${(e as Error).message}`);
   process.exitCode = 1;
 }
+// In-process parts leave database pools open; the figures are printed, so end here.
+process.exit(process.exitCode ?? 0);
