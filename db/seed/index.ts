@@ -4,7 +4,7 @@ import postgres from "postgres";
 import { count, eq } from "drizzle-orm";
 import * as schema from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
-import { runCheck } from "@/lib/register/run-check";
+import { checkSnapshot, runCheck } from "@/lib/register/run-check";
 import {
   DEMO_MEMBER_TYPES, DEMO_ORG, DEMO_PASSWORD, DEMO_SITES, DEMO_USERS, OTHER_ORG, OTHER_SITE, OTHER_USERS,
 } from "./data";
@@ -137,14 +137,8 @@ export async function seed() {
           .insert(checks)
           .values({
             memberId: m!.id,
-            method: outcome.method,
             reason: "logged",
-            inputs: outcome.inputs,
-            result: outcome.result,
-            capacityN: outcome.capacityN,
-            utilisation: outcome.utilisation,
-            pass: outcome.pass,
-            engineVersion: outcome.engineVersion,
+            ...checkSnapshot(outcome),
             createdBy: people.engineer!.id,
           })
           .returning({ id: checks.id });

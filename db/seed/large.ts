@@ -7,7 +7,7 @@ import { drizzle } from "drizzle-orm/postgres-js";
 import postgres from "postgres";
 import { and, eq } from "drizzle-orm";
 import * as schema from "@/db/schema";
-import { runCheck } from "@/lib/register/run-check";
+import { checkSnapshot, runCheck } from "@/lib/register/run-check";
 import { DEMO_ORG, DEMO_USERS } from "./data";
 
 export const LARGE_SITE = { name: "Harbour Lane Multi-storey", code: "HLM", address: "Harbour Lane, Wexcombe" };
@@ -139,14 +139,8 @@ export async function seedLarge(url: string, count = LARGE_MEMBER_COUNT) {
           checkRows.push({
             id: checkId,
             memberId,
-            method: outcome.method,
             reason: "logged",
-            inputs: outcome.inputs,
-            result: outcome.result,
-            capacityN: outcome.capacityN,
-            utilisation: outcome.utilisation,
-            pass: outcome.pass,
-            engineVersion: outcome.engineVersion,
+            ...checkSnapshot(outcome),
             createdBy: engineerId,
             createdAt: touched,
           });

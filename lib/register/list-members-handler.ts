@@ -4,14 +4,11 @@ import { listMembers } from "@/db/queries/member-list";
 import { apiHandler } from "@/lib/api";
 import { requireApiUser } from "@/lib/auth";
 import { assertSitePermission } from "@/lib/authz";
-import { fieldErrorsFromZod, ValidationError } from "@/lib/errors";
-import { memberListQuerySchema, searchParamsToQuery } from "@/lib/validations/member-list";
+import { parseMemberListRequest } from "./member-query";
 
 export const GET = apiHandler<{ siteId: string }>(async (req, { params }) => {
   const user = await requireApiUser();
   await assertSitePermission(user, params.siteId, "viewSite");
-  const parsed = memberListQuerySchema.safeParse(searchParamsToQuery(new URL(req.url).searchParams));
-  if (!parsed.success) throw new ValidationError(fieldErrorsFromZod(parsed.error.issues), "Some query values need attention.");
-  const { limit, cursor, sort, dir, ...filters } = parsed.data;
+  const { limit, cursor, sort, dir, filters } = parseMemberListRequest(req);
   return listMembers({ siteId: params.siteId, filters, sort, dir, limit, cursor });
 });

@@ -23,7 +23,7 @@ import { rolesAllowPure } from "@/lib/permissions";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
 import { CHECK_FIELDS, EDITABLE_STATUSES, memberCreateSchema, memberPatchSchema, memberStateSchema } from "@/lib/validations/member";
 import { deriveSlabLoad, type SlabLoadInfo } from "./slab-load";
-import { runCheck, type CheckOutcome } from "./run-check";
+import { checkSnapshot, runCheck, type CheckOutcome } from "./run-check";
 
 export type { MemberView, SessionUser, Tx };
 
@@ -147,15 +147,7 @@ async function resolveRefs(site: SiteForCheck, v: MemberState, tx: Tx | typeof d
 }
 
 function checkRow(outcome: CheckOutcome, slab: SlabLoadInfo | null) {
-  return {
-    method: outcome.method,
-    inputs: slab ? { ...outcome.inputs, slabLoad: slab } : outcome.inputs,
-    result: outcome.result,
-    capacityN: outcome.capacityN,
-    utilisation: outcome.utilisation,
-    pass: outcome.pass,
-    engineVersion: outcome.engineVersion,
-  };
+  return checkSnapshot(outcome, slab ? { slabLoad: slab } : undefined);
 }
 
 /** What an audit row keeps of a member: its fields, without the bookkeeping timestamps. */

@@ -12,6 +12,19 @@ export type CheckOutcome = {
   engineVersion: string;
 };
 
+/** The stored check snapshot's engine fields (the caller adds member, reason, author). */
+export function checkSnapshot(outcome: CheckOutcome, extraInputs?: Record<string, unknown>) {
+  return {
+    method: outcome.method,
+    inputs: extraInputs ? { ...outcome.inputs, ...extraInputs } : outcome.inputs,
+    result: outcome.result,
+    capacityN: outcome.capacityN,
+    utilisation: outcome.utilisation,
+    pass: outcome.pass,
+    engineVersion: outcome.engineVersion,
+  };
+}
+
 export function runCheck(type: CheckType, member: CheckMember, site: CheckSite): CheckOutcome {
   const { request, basis, loadFactor, loadFactorSource } = buildCheckRequest(type, member, site);
   const result = calculate(request);

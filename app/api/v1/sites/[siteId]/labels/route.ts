@@ -7,7 +7,7 @@ import { env } from "@/lib/env";
 import { fieldErrorsFromZod, ValidationError } from "@/lib/errors";
 import { renderLabelSheet } from "@/lib/pdf/labels";
 import { labelsRequestSchema, MAX_LABELS } from "@/lib/validations/labels";
-import { memberListQuerySchema, searchParamsToQuery } from "@/lib/validations/member-list";
+import { parseMemberListRequest } from "@/lib/register/member-query";
 
 type Site = { id: string; name: string; code: string };
 
@@ -32,12 +32,7 @@ async function pdfResponse(site: Site, items: MemberListItem[]) {
 export const GET = apiHandler<{ siteId: string }>(async (req, { params }) => {
   const user = await requireApiUser();
   const { site } = await assertSitePermission(user, params.siteId, "viewSite");
-  const query = searchParamsToQuery(new URL(req.url).searchParams);
-  delete query.cursor;
-  delete query.limit;
-  const parsed = memberListQuerySchema.safeParse(query);
-  if (!parsed.success) throw new ValidationError(fieldErrorsFromZod(parsed.error.issues), "Some query values need attention.");
-  const { sort, dir, limit: _limit, cursor: _cursor, ...filters } = parsed.data;
+  const { sort, dir, filters } = parseMemberListRequest(req, { wholeSet: true });
   const page = await listMembers({ siteId: site.id, filters, sort, dir, limit: MAX_LABELS });
   if (page.items.length === 0) throw new ValidationError({ _: "No member matches these filters, so there is no label to print." }, "No member matches these filters.");
   if (page.nextCursor)

@@ -4,20 +4,14 @@ import { iterateMembers } from "@/db/queries/member-list";
 import { apiHandler } from "@/lib/api";
 import { requireApiUser } from "@/lib/auth";
 import { assertSitePermission } from "@/lib/authz";
-import { fieldErrorsFromZod, ValidationError } from "@/lib/errors";
 import { csvHeader, csvRows } from "@/lib/register/members-csv";
-import { memberListQuerySchema, searchParamsToQuery } from "@/lib/validations/member-list";
+import { parseMemberListRequest } from "@/lib/register/member-query";
 
 export const GET = apiHandler<{ siteId: string }>(async (req, { params }) => {
   const user = await requireApiUser();
   const { site } = await assertSitePermission(user, params.siteId, "viewSite");
-  const query = searchParamsToQuery(new URL(req.url).searchParams);
   // Export is always everything the filters show, whatever page the screen was on.
-  delete query.cursor;
-  delete query.limit;
-  const parsed = memberListQuerySchema.safeParse(query);
-  if (!parsed.success) throw new ValidationError(fieldErrorsFromZod(parsed.error.issues), "Some query values need attention.");
-  const { sort, dir, limit: _limit, cursor: _cursor, ...filters } = parsed.data;
+  const { sort, dir, filters } = parseMemberListRequest(req, { wholeSet: true });
 
   const batches = iterateMembers({ siteId: site.id, filters, sort, dir, batchSize: 1000 });
   const encoder = new TextEncoder();
