@@ -9,7 +9,11 @@ import fs from "node:fs";
 import path from "node:path";
 
 const p = profile("test");
-const only = process.argv.slice(2); // e.g. `npm test -- unit` or `-- e2e`
+// `npm test -- unit` or `-- e2e` runs one part; a path narrows it to those files, e.g.
+// `npm test -- integration tests/integration/permits-issue.test.ts`.
+const args = process.argv.slice(2);
+const only = args.filter((a) => ["unit", "integration", "e2e"].includes(a));
+const files = (part) => args.filter((a) => a.includes(`tests/${part}/`));
 const want = (part) => only.length === 0 || only.includes(part);
 
 ensureNodeModules();
@@ -68,13 +72,13 @@ function summary() {
 }
 
 try {
-  if (want("unit")) step("unit tests", bin("vitest"), ["run", "--project", "unit", ...vitestReport("unit")]);
+  if (want("unit")) step("unit tests", bin("vitest"), ["run", "--project", "unit", ...vitestReport("unit"), ...files("unit")]);
   const built = !(want("integration") || want("e2e")) || !needsBuild(p.distDir) || step(`build (${p.distDir})`, bin("next"), ["build"]);
   if (!built) throw new Error("the app did not build; integration and end-to-end tests were not run");
   if (want("integration")) {
     // Integration tests talk to the running app over HTTP and start their own workers.
     await startApp(p);
-    step("integration tests", bin("vitest"), ["run", "--project", "integration", ...vitestReport("integration")]);
+    step("integration tests", bin("vitest"), ["run", "--project", "integration", ...vitestReport("integration"), ...files("integration")]);
     await stopService(`${p.name}-app`);
   }
   if (want("e2e")) {
@@ -83,7 +87,7 @@ try {
     await ensureWorker(p);
     await startApp(p);
     env.PLAYWRIGHT_JSON_OUTPUT_NAME = reportFile("e2e");
-    step("end-to-end tests (Chromium)", bin("playwright"), ["test", "--reporter=list,json"]);
+    step("end-to-end tests (Chromium)", bin("playwright"), ["test", "--reporter=list,json", ...files("e2e")]);
   }
 } catch (e) {
   failed = true;

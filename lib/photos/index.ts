@@ -4,14 +4,12 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { db } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
-import { getPhotoForUser, insertPhoto, updatePhoto } from "@/db/queries/photos";
+import { insertPhoto, updatePhoto } from "@/db/queries/photos";
 import type { SessionUser } from "@/db/queries/users";
 import type { Photo } from "@/db/schema";
-import { assertSitePermission, getSiteAccess, isUuid } from "@/lib/authz";
-import { fieldErrorsFromZod, ForbiddenError, NotFoundError, ValidationError } from "@/lib/errors";
-import { rolesAllowPure } from "@/lib/permissions";
+import { ValidationError } from "@/lib/errors";
 import { deleteObject, getObject, headObject, presignGet, presignPut, putObject } from "@/lib/storage";
-import { MAX_PHOTO_BYTES, photoPresignSchema } from "@/lib/validations/member";
+import { MAX_PHOTO_BYTES, type PhotoPresignInput } from "@/lib/validations/member";
 import { processPhoto } from "./process";
 
 export { MAX_PHOTO_BYTES };
@@ -50,16 +48,17 @@ export async function photoView(p: Pick<Photo, "id" | "status" | "memberId" | "c
   };
 }
 
-/** Starts an upload: records a pending photo and returns the URL the browser PUTs the bytes to. */
-export async function presignPhoto(args: { user: SessionUser; siteId: string; memberId?: string | null; input: unknown }) {
-  const parsed = photoPresignSchema.safeParse(args.input);
-  if (!parsed.success) throw new ValidationError(fieldErrorsFromZod(parsed.error.issues));
-  const { contentType, size } = parsed.data;
+/**
+ * Starts an upload: records a pending photo and returns the URL the browser PUTs the bytes to.
+ * The caller (a route on the seam in lib/api/route.ts) has already found the site and checked the role.
+ */
+export async function presignPhoto(args: { user: SessionUser; site: { id: string }; memberId?: string | null; input: PhotoPresignInput }) {
+  const { contentType, size } = args.input;
   const photoId = randomUUID();
-  const objectKey = `sites/${args.siteId}/photos/${photoId}/original`;
+  const objectKey = `sites/${args.site.id}/photos/${photoId}/original`;
   await insertPhoto({
     id: photoId,
-    siteId: args.siteId,
+    siteId: args.site.id,
     memberId: args.memberId ?? null,
     uploadedBy: args.user.id,
     objectKey,
@@ -71,12 +70,6 @@ export async function presignPhoto(args: { user: SessionUser; siteId: string; me
   return { photoId, uploadUrl, method: "PUT" as const, headers: { "content-type": contentType }, maxBytes: MAX_PHOTO_BYTES };
 }
 
-/** Site-level presign, for photos of a member that is not saved yet. */
-export async function presignSitePhoto(args: { user: SessionUser; siteId: string; input: unknown }) {
-  await assertSitePermission(args.user, args.siteId, "logMember");
-  return presignPhoto(args);
-}
-
 async function reject(photo: Photo, reason: string): Promise<never> {
   await updatePhoto({ photoId: photo.id, values: { status: "rejected", rejectReason: reason } });
   await deleteObject(photo.objectKey).catch(() => undefined);
@@ -84,19 +77,9 @@ async function reject(photo: Photo, reason: string): Promise<never> {
 }
 
 /** Confirms an upload: checks size and type from the stored bytes, makes the copies, records it. */
-export async function completePhoto(args: { user: SessionUser; photoId: string }): Promise<PhotoView> {
-  const { user, photoId } = args;
-  if (!isUuid(photoId)) throw new NotFoundError("That photo");
-  const photo = await getPhotoForUser({ photoId, organisationId: user.organisationId });
-  if (!photo) throw new NotFoundError("That photo");
-  let roles;
-  try {
-    ({ roles } = await getSiteAccess(user, photo.siteId));
-  } catch (e) {
-    if (e instanceof NotFoundError) throw new NotFoundError("That photo");
-    throw e;
-  }
-  if (!rolesAllowPure(roles, "logMember") && !rolesAllowPure(roles, "editMember")) throw new ForbiddenError();
+export async function completePhoto(args: { user: SessionUser; photo: Photo }): Promise<PhotoView> {
+  const { user, photo } = args;
+  const photoId = photo.id;
   if (photo.status === "ready") return photoView(photo);
   if (photo.status === "rejected") throw new ValidationError({ photo: photo.rejectReason ?? "This photo was refused." }, photo.rejectReason ?? "This photo was refused.");
 

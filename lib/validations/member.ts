@@ -113,3 +113,4 @@ export const photoPresignSchema = z.object({
     .positive("The photo is empty (0 bytes).")
     .max(MAX_PHOTO_BYTES, "The photo is larger than 15 MB; take it again at a lower resolution."),
 });
+export type PhotoPresignInput = z.output<typeof photoPresignSchema>;

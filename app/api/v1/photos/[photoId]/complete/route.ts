@@ -1,9 +1,7 @@
-import { apiHandler } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
+import { siteRoute } from "@/lib/api/route";
 import { completePhoto } from "@/lib/photos";
 
 /** Confirms an upload: the photo with its thumbnail URL, or 422 with the reason it was refused. */
-export const POST = apiHandler<{ photoId: string }>(async (_req, { params }) => {
-  const user = await requireApiUser();
-  return { photo: await completePhoto({ user, photoId: params.photoId }) };
-});
+export const POST = siteRoute({ resource: "photo", permission: "logMember" }, async ({ user, resource: photo }) => ({
+  photo: await completePhoto({ user, photo }),
+}));

@@ -1,10 +1,9 @@
-import { apiHandler, created, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { presignSitePhoto } from "@/lib/photos";
+import { created } from "@/lib/api";
+import { siteRoute } from "@/lib/api/route";
+import { presignPhoto } from "@/lib/photos";
+import { photoPresignSchema } from "@/lib/validations/member";
 
 /** { contentType, size } → { photoId, uploadUrl }: a photo for a member that is not saved yet (attach with photoIds). */
-export const POST = apiHandler<{ siteId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const input = await readJson(req);
-  return created(await presignSitePhoto({ user, siteId: params.siteId, input }));
-});
+export const POST = siteRoute({ resource: "site", permission: "logMember", body: photoPresignSchema }, async ({ user, site, input }) =>
+  created(await presignPhoto({ user, site, input })),
+);

@@ -1,0 +1,145 @@
+// The one seam for every route handler. A route declares who may call it, the record it acts on
+// and the shape of its input; this wrapper answers in the house order — 401 not signed in → 404
+// not found or not yours → 403 role not allowed → 422 bad input — and hands the use case a typed
+// context. Use cases take that context and never re-derive access.
+import "server-only";
+import type { z } from "zod";
+import type { SiteRole } from "@/db/schema";
+import { requireApiUser, type SessionUser } from "@/lib/auth";
+import { fieldErrorsFromZod, ForbiddenError, ValidationError } from "@/lib/errors";
+import { rolesAllowPure, type PermissionName } from "@/lib/permissions";
+import { apiHandler } from "./index";
+import { RESOURCES, type ResourceKind, type ResourceOf, type Site } from "./resources";
+
+/** A zod schema, or a function that parses and throws ValidationError itself (custom messages). */
+export type Parser<T = unknown> = z.ZodType<T> | ((raw: unknown) => T);
+type Parsed<P> = P extends z.ZodType ? z.output<P> : P extends (raw: unknown) => infer T ? T : undefined;
+
+function runParser<T>(parser: Parser<T>, raw: unknown): T {
+  if (typeof parser === "function") return parser(raw);
+  const r = parser.safeParse(raw);
+  if (!r.success) throw new ValidationError(fieldErrorsFromZod(r.error.issues));
+  return r.data;
+}
+
+/** A JSON object body; `optional` lets an empty body stand for `{}`. Anything else is a 422. */
+async function readJsonObject(req: Request, optional: boolean): Promise<Record<string, unknown>> {
+  const text = await req.text();
+  if (!text.trim()) {
+    if (optional) return {};
+    throw new ValidationError({ _: "The request body must be JSON." }, "The request body must be JSON.");
+  }
+  let body: unknown;
+  try {
+    body = JSON.parse(text);
+  } catch {
+    throw new ValidationError({ _: "The request body must be JSON." }, "The request body must be JSON.");
+  }
+  if (!body || typeof body !== "object" || Array.isArray(body))
+    throw new ValidationError({ _: "The request body must be a JSON object." }, "The request body must be a JSON object.");
+  return body as Record<string, unknown>;
+}
+
+/** Query strings are read as an object of strings; a key given twice keeps every value as an array. */
+function readQuery(req: Request): Record<string, string | string[]> {
+  const out: Record<string, string | string[]> = {};
+  for (const [k, v] of new URL(req.url).searchParams) {
+    const prev = out[k];
+    out[k] = prev === undefined ? v : Array.isArray(prev) ? [...prev, v] : [prev, v];
+  }
+  return out;
+}
+
+/** What a route says about itself: read by the role-matrix test, so a new route is covered at once. */
+export type RouteMeta =
+  | { scope: "site"; resource: ResourceKind; permission: PermissionName; body: "json" | "optional-json" | "none" | "raw" }
+  | { scope: "user"; permission?: PermissionName; body: "json" | "optional-json" | "none" | "raw" }
+  | { scope: "public"; body: "json" | "optional-json" | "none" | "raw" };
+
+export type SiteContext<R, I, Q> = {
+  req: Request;
+  params: Record<string, string>;
+  user: SessionUser;
+  site: Site;
+  roles: SiteRole[];
+  resource: R;
+  input: I;
+  query: Q;
+  /** Whether the user's roles on this site allow another permission (for what a screen may offer). */
+  may: (p: PermissionName) => boolean;
+};
+
+type BodyMode = "json" | "optional-json" | "raw";
+
+export function siteRoute<K extends ResourceKind, B extends Parser | undefined = undefined, Q extends Parser | undefined = undefined>(
+  spec: {
+    /** The record the route acts on, found by its path parameter (see lib/api/resources.ts). */
+    resource: K;
+    /** The role rule from lib/permissions.ts; checked after the record is found, before input is read. */
+    permission: PermissionName;
+    /** The sentence a refused role sees. */
+    forbidden?: string;
+    /** A record-specific rule on top of the role (e.g. a supervisor's issuing scope): throw ForbiddenError. */
+    authorize?: (ctx: SiteContext<ResourceOf<K>, undefined, undefined>) => Promise<void> | void;
+    body?: B;
+    /** "optional-json": an empty body stands for {}; "raw": the handler reads `req` itself (CSV, multipart). */
+    bodyMode?: BodyMode;
+    query?: Q;
+  },
+  fn: (ctx: SiteContext<ResourceOf<K>, Parsed<B>, Parsed<Q>>) => Promise<Response | unknown>,
+) {
+  const bodyMode: RouteMeta["body"] = spec.bodyMode ?? (spec.body ? "json" : "none");
+  const handler = apiHandler<Record<string, string>>(async (req, { params }) => {
+    const user = await requireApiUser();
+    const loaded = await RESOURCES[spec.resource].load(user, params);
+    const may = (p: PermissionName) => rolesAllowPure(loaded.roles, p);
+    if (!may(spec.permission)) throw new ForbiddenError(spec.forbidden);
+    const base = { req, params, user, site: loaded.site, roles: loaded.roles, resource: loaded.resource as ResourceOf<K>, may };
+    if (spec.authorize) await spec.authorize({ ...base, input: undefined, query: undefined });
+    const query = (spec.query ? runParser(spec.query, readQuery(req)) : undefined) as Parsed<Q>;
+    const input = (
+      spec.body && bodyMode !== "raw" ? runParser(spec.body, await readJsonObject(req, bodyMode === "optional-json")) : undefined
+    ) as Parsed<B>;
+    return fn({ ...base, input, query });
+  });
+  const meta: RouteMeta = { scope: "site", resource: spec.resource, permission: spec.permission, body: bodyMode };
+  return Object.assign(handler, { meta });
+}
+
+export type UserContext<I, Q> = { req: Request; params: Record<string, string>; user: SessionUser; input: I; query: Q };
+
+/** A route that needs a signed-in person but no site (the person's own account, their sites). */
+export function userRoute<B extends Parser | undefined = undefined, Q extends Parser | undefined = undefined>(
+  spec: { body?: B; bodyMode?: BodyMode; query?: Q; permission?: PermissionName },
+  fn: (ctx: UserContext<Parsed<B>, Parsed<Q>>) => Promise<Response | unknown>,
+) {
+  const bodyMode: RouteMeta["body"] = spec.bodyMode ?? (spec.body ? "json" : "none");
+  const handler = apiHandler<Record<string, string>>(async (req, { params }) => {
+    const user = await requireApiUser();
+    const query = (spec.query ? runParser(spec.query, readQuery(req)) : undefined) as Parsed<Q>;
+    const input = (
+      spec.body && bodyMode !== "raw" ? runParser(spec.body, await readJsonObject(req, bodyMode === "optional-json")) : undefined
+    ) as Parsed<B>;
+    return fn({ req, params, user, input, query });
+  });
+  const meta: RouteMeta = { scope: "user", permission: spec.permission, body: bodyMode };
+  return Object.assign(handler, { meta });
+}
+
+export type PublicContext<I> = { req: Request; params: Record<string, string>; input: I };
+
+/** A route anyone may call (health, ping, first-run setup, accepting an invitation, password resets). */
+export function publicRoute<B extends Parser | undefined = undefined>(
+  spec: { body?: B; bodyMode?: BodyMode },
+  fn: (ctx: PublicContext<Parsed<B>>) => Promise<Response | unknown>,
+) {
+  const bodyMode: RouteMeta["body"] = spec.bodyMode ?? (spec.body ? "json" : "none");
+  const handler = apiHandler<Record<string, string>>(async (req, { params }) => {
+    const input = (
+      spec.body && bodyMode !== "raw" ? runParser(spec.body, await readJsonObject(req, bodyMode === "optional-json")) : undefined
+    ) as Parsed<B>;
+    return fn({ req, params, input });
+  });
+  const meta: RouteMeta = { scope: "public", body: bodyMode };
+  return Object.assign(handler, { meta });
+}
