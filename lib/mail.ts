@@ -21,6 +21,11 @@ function getTransport() {
 }
 
 export type MailMessage = {
+  /**
+   * A stable Message-ID (from the outbox row): if a worker dies between the server's "accepted" and
+   * recording it, the one message resent carries the same id, which mail systems treat as one.
+   */
+  messageId?: string;
   to: string;
   subject: string;
   text: string;
@@ -31,6 +36,7 @@ export type MailMessage = {
 export async function sendMail(msg: MailMessage) {
   const info = await getTransport().sendMail({
     from: env.MAIL_FROM,
+    ...(msg.messageId ? { messageId: msg.messageId } : {}),
     to: msg.to,
     subject: msg.subject,
     text: msg.text,

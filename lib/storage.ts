@@ -6,6 +6,36 @@ import {
 } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { env } from "@/lib/env";
+import { AppError } from "@/lib/errors";
+
+/** The store cannot be reached (down, refused, timed out): a 503 with a sentence, never a stack trace. */
+export class StorageUnavailableError extends AppError {
+  constructor(cause?: unknown) {
+    super(503, "store_unavailable", "The file store cannot be reached just now; nothing was lost. Try again in a minute.", undefined, cause);
+  }
+}
+
+/** A network failure carries no HTTP status from the store; an answer from the store (404, 403…) does. */
+function isUnreachable(e: unknown): boolean {
+  const status = (e as { $metadata?: { httpStatusCode?: number } })?.$metadata?.httpStatusCode;
+  if (typeof status === "number") return status >= 500;
+  const code = (e as { code?: string })?.code ?? (e as { cause?: { code?: string } })?.cause?.code;
+  const name = (e as Error)?.name;
+  return (
+    ["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "EPIPE", "ENOTFOUND", "EAI_AGAIN"].includes(code ?? "") ||
+    ["TimeoutError", "RequestTimeout", "NetworkingError"].includes(name ?? "") ||
+    (e as Error)?.constructor?.name === "AggregateError"
+  );
+}
+
+async function send<T>(fn: () => Promise<T>): Promise<T> {
+  try {
+    return await fn();
+  } catch (e) {
+    if (isUnreachable(e)) throw new StorageUnavailableError(e);
+    throw e;
+  }
+}
 
 function client(endpoint: string | undefined) {
   return new S3Client({
@@ -24,12 +54,14 @@ const publicS3 = env.S3_PUBLIC_ENDPOINT ? client(env.S3_PUBLIC_ENDPOINT) : s3;
 const Bucket = env.S3_BUCKET;
 
 export async function putObject(key: string, body: Uint8Array | Buffer | string, contentType: string) {
-  await s3.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: contentType }));
+  await send(() => s3.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: contentType })));
 }
 
 export async function getObject(key: string): Promise<Buffer> {
-  const r = await s3.send(new GetObjectCommand({ Bucket, Key: key }));
-  const bytes = await r.Body!.transformToByteArray();
+  const bytes = await send(async () => {
+    const r = await s3.send(new GetObjectCommand({ Bucket, Key: key }));
+    return r.Body!.transformToByteArray();
+  });
   return Buffer.from(bytes);
 }
 
@@ -41,12 +73,13 @@ export async function headObject(key: string): Promise<{ size: number; contentTy
   } catch (e) {
     const status = (e as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
     if (status === 404 || (e as Error).name === "NotFound" || (e as Error).name === "NoSuchKey") return null;
+    if (isUnreachable(e)) throw new StorageUnavailableError(e);
     throw e;
   }
 }
 
 export async function deleteObject(key: string) {
-  await s3.send(new DeleteObjectCommand({ Bucket, Key: key }));
+  await send(() => s3.send(new DeleteObjectCommand({ Bucket, Key: key })));
 }
 
 /** A URL the browser can PUT the bytes to directly, so the app server never carries them. */

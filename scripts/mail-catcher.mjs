@@ -41,6 +41,7 @@ const smtp = new SMTPServer({
           headerTo: addr(parsed.to),
           from: parsed.from?.value?.[0]?.address ?? session.envelope.mailFrom?.address ?? "",
           subject: parsed.subject ?? "",
+          messageId: parsed.messageId ?? "",
           date: new Date().toISOString(),
           text: parsed.text ?? "",
           html: typeof parsed.html === "string" ? parsed.html : "",
