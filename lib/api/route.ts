@@ -51,10 +51,15 @@ function readQuery(req: Request): Record<string, string | string[]> {
 }
 
 /** What a route says about itself: read by the role-matrix test, so a new route is covered at once. */
+type BodyMeta = {
+  body: "json" | "optional-json" | "none" | "raw";
+  /** The body's parser, so a property-based test can generate only bodies the route must refuse. */
+  parser?: Parser;
+};
 export type RouteMeta =
-  | { scope: "site"; resource: ResourceKind; permission: PermissionName; body: "json" | "optional-json" | "none" | "raw" }
-  | { scope: "user"; permission?: PermissionName; body: "json" | "optional-json" | "none" | "raw" }
-  | { scope: "public"; body: "json" | "optional-json" | "none" | "raw" };
+  | ({ scope: "site"; resource: ResourceKind; permission: PermissionName } & BodyMeta)
+  | ({ scope: "user"; permission?: PermissionName } & BodyMeta)
+  | ({ scope: "public" } & BodyMeta);
 
 export type SiteContext<R, I, Q> = {
   req: Request;
@@ -102,7 +107,7 @@ export function siteRoute<K extends ResourceKind, B extends Parser | undefined =
     ) as Parsed<B>;
     return fn({ ...base, input, query });
   });
-  const meta: RouteMeta = { scope: "site", resource: spec.resource, permission: spec.permission, body: bodyMode };
+  const meta: RouteMeta = { scope: "site", resource: spec.resource, permission: spec.permission, body: bodyMode, parser: spec.body };
   return Object.assign(handler, { meta });
 }
 
@@ -122,7 +127,7 @@ export function userRoute<B extends Parser | undefined = undefined, Q extends Pa
     ) as Parsed<B>;
     return fn({ req, params, user, input, query });
   });
-  const meta: RouteMeta = { scope: "user", permission: spec.permission, body: bodyMode };
+  const meta: RouteMeta = { scope: "user", permission: spec.permission, body: bodyMode, parser: spec.body };
   return Object.assign(handler, { meta });
 }
 
@@ -140,6 +145,6 @@ export function publicRoute<B extends Parser | undefined = undefined>(
     ) as Parsed<B>;
     return fn({ req, params, input });
   });
-  const meta: RouteMeta = { scope: "public", body: bodyMode };
+  const meta: RouteMeta = { scope: "public", body: bodyMode, parser: spec.body };
   return Object.assign(handler, { meta });
 }
