@@ -16,6 +16,42 @@ const config = [
     },
   },
   {
+    // The data layer is sealed: only db/** may import the client (`db`, `sql`). Everything else
+    // reads and writes through db/queries/<entity>.ts and opens a transaction with
+    // `transaction(fn)` from "@/db"; type imports (Tx, DbOrTx) stay allowed.
+    files: ["**/*.{ts,tsx,mts,mjs,js}"],
+    ignores: [
+      "db/**",
+      // Outside the app: tests arrange and inspect rows directly, benchmarks fill the database.
+      "tests/**",
+      "scripts/**",
+      // TEMPORARY (the lead removes these at merge): areas other helpers are still moving onto
+      // db/queries — the permits feature (permits helper), and updateMember's transaction in
+      // lib/register/members.ts (member helper).
+      "lib/permits/**",
+      "lib/register/members.ts",
+    ],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        {
+          paths: ["@/db", "@/db/index"].map((name) => ({
+            name,
+            importNames: ["db", "sql"],
+            message: "Query through db/queries/<entity>.ts; use `transaction` from \"@/db\" to compose queries in one transaction.",
+          })),
+          patterns: [
+            {
+              group: ["**/db", "**/db/index", "!@/db"],
+              importNames: ["db", "sql"],
+              message: "Query through db/queries/<entity>.ts; use `transaction` from \"@/db\" to compose queries in one transaction.",
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
     ignores: [".next/**", ".next-test*/**", ".next-dev/**", ".data/**", "node_modules/**", "next-env.d.ts", "docker/**"],
   },
 ];

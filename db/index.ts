@@ -1,4 +1,5 @@
-// The one database client. Query modules import `db` (and take `tx = db` to compose).
+// The one database client. Only db/** imports `db`/`sql` (an ESLint rule keeps it so): query
+// modules take `tx = db` to compose, and use cases outside db/ open a transaction with `transaction`.
 import { drizzle } from "drizzle-orm/postgres-js";
 import postgres from "postgres";
 import { env } from "@/lib/env";
@@ -18,3 +19,8 @@ export type Db = typeof db;
 export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 /** A database handle that may be the pool or an open transaction. */
 export type DbOrTx = Db | Tx;
+
+/** One transaction for a use case that composes several db/queries functions (pass `tx` to each). */
+export function transaction<T>(fn: (tx: Tx) => Promise<T>): Promise<T> {
+  return db.transaction(fn);
+}

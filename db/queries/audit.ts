@@ -14,6 +14,21 @@ export type AuditInput = {
   after?: unknown;
 };
 
+/** Many audit rows at once (a re-check of every member of a type), in batches of a thousand. */
+export async function recordAudits(events: AuditInput[], tx: DbOrTx = db) {
+  const rows = events.map((e) => ({
+    organisationId: e.organisationId,
+    siteId: e.siteId ?? null,
+    actorId: e.actorId ?? null,
+    action: e.action,
+    entityType: e.entityType,
+    entityId: e.entityId ?? null,
+    before: e.before ?? null,
+    after: e.after ?? null,
+  }));
+  for (let i = 0; i < rows.length; i += 1000) await tx.insert(auditEvents).values(rows.slice(i, i + 1000));
+}
+
 /** Call inside the same transaction as the change it records. */
 export async function recordAudit(e: AuditInput, tx: DbOrTx = db) {
   await tx.insert(auditEvents).values({

@@ -30,17 +30,6 @@ export async function lockMemberForInspection({ memberId }: { memberId: string }
   return row ?? null;
 }
 
-/** A member's site and tag when the member belongs to the organisation (access is checked by the caller). */
-export async function getMemberSiteForUser({ memberId, organisationId }: { memberId: string; organisationId: string }, tx: DbOrTx = db) {
-  const [row] = await tx
-    .select({ id: members.id, siteId: members.siteId, tag: members.tag, status: members.status })
-    .from(members)
-    .innerJoin(sites, eq(sites.id, members.siteId))
-    .where(and(eq(members.id, memberId), eq(sites.organisationId, organisationId)))
-    .limit(1);
-  return row ?? null;
-}
-
 export async function getLatestInspection({ memberId }: { memberId: string }, tx: DbOrTx = db): Promise<Inspection | null> {
   const [row] = await tx
     .select()

@@ -2,7 +2,7 @@
 // alerts of those kinds raised in the last 24 hours on their sites. Once per person per day,
 // even if two workers run it (an advisory lock and the outbox row it leaves behind).
 import "server-only";
-import { db } from "@/db";
+import { transaction } from "@/db";
 import {
   advisoryXactLock, digestAlreadyQueued, listAlertsBetween, listDigestUsers, listPreferences, listUserSiteRoles,
 } from "@/db/queries/alerts";
@@ -20,7 +20,7 @@ export async function sendDailyDigests({ now = new Date(), userIds }: { now?: Da
   let queued = 0;
   const people = (await listDigestUsers()).filter((u) => !userIds || userIds.includes(u.userId));
   for (const person of people) {
-    queued += await db.transaction(async (tx) => {
+    queued += await transaction(async (tx) => {
       await advisoryXactLock(`digest:${person.userId}:${day}`, tx);
       if (await digestAlreadyQueued({ userId: person.userId, kind }, tx)) return 0;
       const prefs = new Map((await listPreferences({ userIds: [person.userId] }, tx)).map((p) => [p.kind, p.delivery as Delivery]));

@@ -2,7 +2,7 @@
 // the sites to look at; each is safe to run from several workers at once: an alert fires once
 // because of its unique key, and a permit expires once because only one update finds it issued.
 import "server-only";
-import { db } from "@/db";
+import { transaction } from "@/db";
 import {
   expireIssuedPermit, findFailingEmails, findUnalertedOverloads, listIssuedPermitsForExpiry, unloadMembersOfExpiredPermit,
 } from "@/db/queries/alerts";
@@ -34,7 +34,7 @@ export async function sweepOverloads({ now = new Date(), siteIds = null }: ScanS
     link: `/sites/${m.siteId}/members/${m.memberId}`,
     createdAt: now,
   }));
-  const r = await db.transaction((tx) => raiseAlerts(candidates, tx));
+  const r = await transaction((tx) => raiseAlerts(candidates, tx));
   return r.raised.length;
 }
 
@@ -47,7 +47,7 @@ export async function scanPermitExpiry({ now = new Date(), siteIds = null }: Sca
     const label = permitLabel(p);
     const link = `/sites/${p.siteId}/permits/${p.id}`;
     if (until <= now) {
-      raised += await db.transaction(async (tx) => {
+      raised += await transaction(async (tx) => {
         const won = await expireIssuedPermit({ permitId: p.id, now }, tx);
         if (!won) return 0; // another worker expired it
         const unloaded = await unloadMembersOfExpiredPermit({ permitId: p.id, now }, tx);
@@ -79,7 +79,7 @@ export async function scanPermitExpiry({ now = new Date(), siteIds = null }: Sca
         return r.raised.length;
       });
     } else if (until.getTime() - p.expiryWarningHours * 3600_000 <= now.getTime()) {
-      const r = await db.transaction((tx) =>
+      const r = await transaction((tx) =>
         raiseAlerts(
           [
             {
@@ -123,7 +123,7 @@ export async function scanInspections({ now = new Date(), siteIds = null }: Scan
   let raised = 0;
   // One transaction per site keeps each site's e-mail grouping together and the transactions short.
   for (const siteId of new Set(candidates.map((c) => c.siteId))) {
-    const r = await db.transaction((tx) => raiseAlerts(candidates.filter((c) => c.siteId === siteId), tx));
+    const r = await transaction((tx) => raiseAlerts(candidates.filter((c) => c.siteId === siteId), tx));
     raised += r.raised.length;
   }
   return raised;
@@ -145,7 +145,7 @@ export async function scanFailingEmails({ now = new Date(), siteIds = null }: Sc
     link: null,
     createdAt: now,
   }));
-  const r = await db.transaction((tx) => raiseAlerts(candidates, tx));
+  const r = await transaction((tx) => raiseAlerts(candidates, tx));
   return r.raised.length;
 }
 

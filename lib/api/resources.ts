@@ -3,12 +3,15 @@
 // such a record exists. Add a kind here when a route acts on a new kind of record.
 import "server-only";
 import { getAlertForUser } from "@/db/queries/alerts";
+import { getMemberType } from "@/db/queries/member-types";
 import { getMemberForUser } from "@/db/queries/members";
 import { getDelegationForUser, getPermitForUser } from "@/db/queries/permits";
 import { getPhotoForUser } from "@/db/queries/photos";
+import { getScheme } from "@/db/queries/schemes";
 import { getSiteAccessRow } from "@/db/queries/sites";
 import type { SessionUser } from "@/db/queries/users";
 import type { SiteRole } from "@/db/schema";
+import { getZone } from "@/db/queries/zones";
 import { isUuid } from "@/lib/authz";
 import { NotFoundError } from "@/lib/errors";
 
@@ -28,6 +31,22 @@ function idOr404(params: Record<string, string>, name: string, what: string): st
 }
 
 type Loaded<R> = { site: Site; roles: SiteRole[]; resource: R };
+
+/** A record that lives under a site in the path (sites/{siteId}/zones/{zoneId}): the site first, then the record on it. */
+async function onSite<R>(
+  user: SessionUser,
+  params: Record<string, string>,
+  param: string,
+  what: string,
+  find: (site: Site, id: string) => Promise<R | null>,
+): Promise<Loaded<R>> {
+  const siteId = idOr404(params, "siteId", "That site");
+  const access = await accessOr404(user, siteId, "That site");
+  const id = idOr404(params, param, what);
+  const resource = await find(access.site, id);
+  if (!resource) throw new NotFoundError(what);
+  return { ...access, resource };
+}
 
 /** Each loader: the path parameter it reads, and how it finds the record and its site. */
 export const RESOURCES = {
@@ -88,6 +107,24 @@ export const RESOURCES = {
       const access = await accessOr404(user, alert.siteId, "That alert");
       return { ...access, resource: alert };
     },
+  },
+  zone: {
+    param: "zoneId",
+    load: (user: SessionUser, params: Record<string, string>) =>
+      onSite(user, params, "zoneId", "That zone", (site, zoneId) => getZone({ siteId: site.id, zoneId })),
+  },
+  scheme: {
+    param: "schemeId",
+    load: (user: SessionUser, params: Record<string, string>) =>
+      onSite(user, params, "schemeId", "That scheme", (site, schemeId) => getScheme({ siteId: site.id, schemeId })),
+  },
+  /** A type of the site's organisation library (archived ones too: they can still be edited or deleted). */
+  memberType: {
+    param: "typeId",
+    load: (user: SessionUser, params: Record<string, string>) =>
+      onSite(user, params, "typeId", "That member type", (site, memberTypeId) =>
+        getMemberType({ organisationId: site.organisationId, memberTypeId, includeArchived: true }),
+      ),
   },
 } as const;
 

@@ -5,6 +5,7 @@
 import "server-only";
 import type { z } from "zod";
 import type { SiteRole } from "@/db/schema";
+import { listUserSites } from "@/db/queries/users";
 import { requireApiUser, type SessionUser } from "@/lib/auth";
 import { fieldErrorsFromZod, ForbiddenError, ValidationError } from "@/lib/errors";
 import { rolesAllowPure, type PermissionName } from "@/lib/permissions";
@@ -113,14 +114,23 @@ export function siteRoute<K extends ResourceKind, B extends Parser | undefined =
 
 export type UserContext<I, Q> = { req: Request; params: Record<string, string>; user: SessionUser; input: I; query: Q };
 
-/** A route that needs a signed-in person but no site (the person's own account, their sites). */
+/**
+ * A route that needs a signed-in person but no site (the person's own account, their sites).
+ * With `permission`, the person must hold a role allowing it on at least one of their sites
+ * (e.g. `calculate` for the site-less calculator): someone with no role anywhere gets 403.
+ */
 export function userRoute<B extends Parser | undefined = undefined, Q extends Parser | undefined = undefined>(
-  spec: { body?: B; bodyMode?: BodyMode; query?: Q; permission?: PermissionName },
+  spec: { body?: B; bodyMode?: BodyMode; query?: Q; permission?: PermissionName; forbidden?: string },
   fn: (ctx: UserContext<Parsed<B>, Parsed<Q>>) => Promise<Response | unknown>,
 ) {
   const bodyMode: RouteMeta["body"] = spec.bodyMode ?? (spec.body ? "json" : "none");
   const handler = apiHandler<Record<string, string>>(async (req, { params }) => {
     const user = await requireApiUser();
+    if (spec.permission) {
+      const permission = spec.permission;
+      const sites = await listUserSites({ user });
+      if (!sites.some((s) => rolesAllowPure(s.roles as SiteRole[], permission))) throw new ForbiddenError(spec.forbidden);
+    }
     const query = (spec.query ? runParser(spec.query, readQuery(req)) : undefined) as Parsed<Q>;
     const input = (
       spec.body && bodyMode !== "raw" ? runParser(spec.body, await readJsonObject(req, bodyMode === "optional-json")) : undefined

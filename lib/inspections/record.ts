@@ -1,8 +1,9 @@
 // Recording an inspection. A failed one takes the member out of service, removes it from every
 // issued permit that covers it, tells those permits' recipients and raises a "failed inspection"
-// alert — all in one transaction, so none of it happens without the rest.
+// alert — all in one transaction, so none of it happens without the rest. The route (on the seam
+// in lib/api/route.ts) has found the member and checked the `inspect` permission.
 import "server-only";
-import { db } from "@/db";
+import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import {
   attachInspectionPhotos, findPhotosForInspection, getLatestInspection, insertInspection, lockMemberForInspection,
@@ -19,10 +20,13 @@ import type { InspectionInput } from "@/lib/validations/inspection";
 import { checkLabel } from "./checklist";
 import { nextDueFrom } from "./due";
 
-export async function recordInspection({ user, memberId, input, now = new Date() }: { user: SessionUser; memberId: string; input: InspectionInput; now?: Date }) {
-  return db.transaction(async (tx) => {
+export async function recordInspection(args: { user: SessionUser; member: { id: string }; input: InspectionInput; now?: Date }) {
+  const { user, input, now = new Date() } = args;
+  const memberId = args.member.id;
+  return transaction(async (tx) => {
+    // Locked so two inspections cannot interleave; gone only if deleted since the route found it.
     const member = await lockMemberForInspection({ memberId }, tx);
-    if (!member || member.organisationId !== user.organisationId) throw new NotFoundError("That member");
+    if (!member) throw new NotFoundError("That member");
     if (member.status === "struck")
       throw new ConflictError("This member has been struck (removed); there is nothing to inspect. Log it again if it is back in use.");
 

@@ -2,7 +2,7 @@
 // the object, makes the copies and records the photo. The app server never carries the upload.
 import "server-only";
 import { randomUUID } from "node:crypto";
-import { db } from "@/db";
+import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import { insertPhoto, updatePhoto } from "@/db/queries/photos";
 import type { SessionUser } from "@/db/queries/users";
@@ -102,7 +102,7 @@ export async function completePhoto(args: { user: SessionUser; photo: Photo }): 
     putObject(displayKey, p.display, "image/jpeg"),
     putObject(thumbnailKey, p.thumbnail, "image/jpeg"),
   ]);
-  const updated = await db.transaction(async (tx) => {
+  const updated = await transaction(async (tx) => {
     const row = await updatePhoto({
     photoId,
     values: {

@@ -1,18 +1,18 @@
 // The organisation's member library: create, edit (re-checking every member of the type in the
-// same transaction) and delete (refused while members use the type).
+// same transaction) and delete (refused while members use the type). Routes on the seam
+// (lib/api/route.ts) find the site and the type, check `manageLibrary` and parse the body first.
 import "server-only";
-import { db } from "@/db";
+import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import {
-  countMembersOfType, deleteMemberTypeRow, getMemberType, getMemberTypeByName, insertMemberType, updateMemberTypeRow,
-  type MemberTypeValues,
+  countMembersOfType, deleteMemberTypeRow, getMemberTypeByName, insertMemberType, updateMemberTypeRow,
+  type MemberTypeValues, type MemberTypeView,
 } from "@/db/queries/member-types";
 import type { SessionUser } from "@/db/queries/users";
-import { assertSitePermission, isUuid } from "@/lib/authz";
 import { calculate } from "@/lib/engineering";
 import { findSteelGrade, findTimberClass } from "@/lib/engineering/materials";
-import { ConflictError, fieldErrorsFromZod, NotFoundError, ValidationError, type FieldErrors } from "@/lib/errors";
-import { memberTypeSchema, type MemberTypeParsed } from "@/lib/validations/member-type";
+import { ConflictError, ValidationError, type FieldErrors } from "@/lib/errors";
+import type { MemberTypeParsed } from "@/lib/validations/member-type";
 import { buildCheckRequest } from "./check-request";
 import { recheckMembersOfType } from "./members";
 
@@ -66,26 +66,19 @@ function engineErrors(values: MemberTypeValues): FieldErrors {
   return out;
 }
 
-function parseType(input: unknown): MemberTypeValues {
-  const parsed = memberTypeSchema.safeParse(input);
-  if (!parsed.success) throw new ValidationError(fieldErrorsFromZod(parsed.error.issues));
-  const values = toTypeValues(parsed.data);
+/** The parsed form as stored values, refused (422) when the engine cannot use the type. */
+function typeValues(input: MemberTypeParsed): MemberTypeValues {
+  const values = toTypeValues(input);
   const errors = engineErrors(values);
   if (Object.keys(errors).length) throw new ValidationError(errors);
   return values;
 }
 
-async function loadType(user: SessionUser, memberTypeId: string) {
-  if (!isUuid(memberTypeId)) throw new NotFoundError("That member type");
-  const type = await getMemberType({ organisationId: user.organisationId, memberTypeId, includeArchived: true });
-  if (!type) throw new NotFoundError("That member type");
-  return type;
-}
+type LibrarySite = { id: string; organisationId: string };
 
-export async function createMemberType({ user, siteId, input }: { user: SessionUser; siteId: string; input: unknown }) {
-  const { site } = await assertSitePermission(user, siteId, "manageLibrary");
-  const values = parseType(input);
-  return db.transaction(async (tx) => {
+export async function createMemberType({ user, site, input }: { user: SessionUser; site: LibrarySite; input: MemberTypeParsed }) {
+  const values = typeValues(input);
+  return transaction(async (tx) => {
     if (await getMemberTypeByName({ organisationId: site.organisationId, name: values.name }, tx)) {
       throw new ValidationError({ name: `Your library already has a type called "${values.name}"; give this one another name.` });
     }
@@ -99,12 +92,11 @@ export async function createMemberType({ user, siteId, input }: { user: SessionU
 }
 
 /** Saves a changed type as a new revision and re-checks every member that uses it. */
-export async function updateMemberType({ user, siteId, memberTypeId, input }: { user: SessionUser; siteId: string; memberTypeId: string; input: unknown }) {
-  const { site } = await assertSitePermission(user, siteId, "manageLibrary");
-  const before = await loadType(user, memberTypeId);
-  const values = parseType(input);
+export async function updateMemberType({ user, site, memberType: before, input }: { user: SessionUser; site: LibrarySite; memberType: MemberTypeView; input: MemberTypeParsed }) {
+  const memberTypeId = before.id;
+  const values = typeValues(input);
   if (values.kind !== before.kind) throw new ValidationError({ kind: "A type's kind cannot change; create a new type instead." });
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const clash = await getMemberTypeByName({ organisationId: site.organisationId, name: values.name }, tx);
     if (clash && clash.id !== memberTypeId) throw new ValidationError({ name: `Your library already has a type called "${values.name}".` });
     const row = (await updateMemberTypeRow({ organisationId: site.organisationId, memberTypeId, values: { ...values, revision: before.revision + 1 } }, tx))!;
@@ -126,10 +118,9 @@ export async function updateMemberType({ user, siteId, memberTypeId, input }: { 
   });
 }
 
-export async function deleteMemberType({ user, siteId, memberTypeId }: { user: SessionUser; siteId: string; memberTypeId: string }) {
-  const { site } = await assertSitePermission(user, siteId, "manageLibrary");
-  const type = await loadType(user, memberTypeId);
-  return db.transaction(async (tx) => {
+export async function deleteMemberType({ user, site, memberType: type }: { user: SessionUser; site: LibrarySite; memberType: MemberTypeView }) {
+  const memberTypeId = type.id;
+  return transaction(async (tx) => {
     const used = await countMembersOfType({ memberTypeId }, tx);
     if (used > 0) {
       throw new ConflictError(

@@ -1,14 +1,10 @@
 import { NextResponse } from "next/server";
-import { sql } from "@/db";
+import { pingDatabase } from "@/db/queries/health";
+import { publicRoute } from "@/lib/api/route";
 
 export const dynamic = "force-dynamic";
 
 /** Liveness and database reachability, for the start script and load balancers. */
-export async function GET() {
-  try {
-    await sql`select 1`;
-    return NextResponse.json({ ok: true });
-  } catch {
-    return NextResponse.json({ ok: false, error: "database unreachable" }, { status: 503 });
-  }
-}
+export const GET = publicRoute({}, async () =>
+  (await pingDatabase()) ? NextResponse.json({ ok: true }) : NextResponse.json({ ok: false, error: "database unreachable" }, { status: 503 }),
+);

@@ -1,7 +1,4 @@
-import { apiHandler } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
+import { userRoute } from "@/lib/api/route";
 
-export const GET = apiHandler(async () => {
-  const user = await requireApiUser();
-  return { user };
-});
+/** The signed-in person. */
+export const GET = userRoute({}, async ({ user }) => ({ user }));

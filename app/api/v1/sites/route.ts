@@ -1,9 +1,8 @@
 import { listUserSites } from "@/db/queries/users";
-import { apiHandler } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
+import { userRoute } from "@/lib/api/route";
 
-export const GET = apiHandler(async () => {
-  const user = await requireApiUser();
+/** The sites the signed-in person can see, with their roles on each. */
+export const GET = userRoute({}, async ({ user }) => {
   const sites = await listUserSites({ user });
   return { items: sites.map((s) => ({ id: s.id, name: s.name, code: s.code, address: s.address, roles: s.roles })) };
 });

@@ -1,7 +1,6 @@
 import { listPreferences, setPreferences } from "@/db/queries/alerts";
-import { apiHandler, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { fieldErrorsFromZod, ValidationError } from "@/lib/errors";
+import { userRoute } from "@/lib/api/route";
+import { ValidationError } from "@/lib/errors";
 import { ALERT_KINDS, DEFAULT_DELIVERY } from "@/lib/alerts/kinds";
 import { alertPreferencesSchema } from "@/lib/validations/alert";
 
@@ -11,17 +10,11 @@ async function current(userId: string) {
 }
 
 /** How the signed-in person receives each kind of alert. */
-export const GET = apiHandler(async () => {
-  const user = await requireApiUser();
-  return { preferences: await current(user.id) };
-});
+export const GET = userRoute({}, async ({ user }) => ({ preferences: await current(user.id) }));
 
-export const PUT = apiHandler(async (req) => {
-  const user = await requireApiUser();
-  const parsed = alertPreferencesSchema.safeParse(await readJson(req));
-  if (!parsed.success) throw new ValidationError(fieldErrorsFromZod(parsed.error.issues));
-  const kinds = parsed.data.preferences.map((p) => p.kind);
+export const PUT = userRoute({ body: alertPreferencesSchema }, async ({ user, input }) => {
+  const kinds = input.preferences.map((p) => p.kind);
   if (new Set(kinds).size !== kinds.length) throw new ValidationError({ preferences: "Each kind may appear once." });
-  await setPreferences({ userId: user.id, values: parsed.data.preferences });
+  await setPreferences({ userId: user.id, values: input.preferences });
   return { preferences: await current(user.id) };
 });

@@ -1,13 +1,11 @@
 // GET (the register's filters) or POST { memberIds } → a PDF sheet of QR tag labels.
 import { getMembersByIds, listMembers, type MemberListItem } from "@/db/queries/member-list";
-import { apiHandler, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { assertSitePermission } from "@/lib/authz";
+import { siteRoute } from "@/lib/api/route";
 import { env } from "@/lib/env";
-import { fieldErrorsFromZod, ValidationError } from "@/lib/errors";
+import { ValidationError } from "@/lib/errors";
 import { renderLabelSheet } from "@/lib/pdf/labels";
 import { labelsRequestSchema, MAX_LABELS } from "@/lib/validations/labels";
-import { parseMemberListRequest } from "@/lib/register/member-query";
+import { memberListQuery } from "@/lib/register/member-query";
 
 type Site = { id: string; name: string; code: string };
 
@@ -29,10 +27,8 @@ async function pdfResponse(site: Site, items: MemberListItem[]) {
   });
 }
 
-export const GET = apiHandler<{ siteId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const { site } = await assertSitePermission(user, params.siteId, "viewSite");
-  const { sort, dir, filters } = parseMemberListRequest(req, { wholeSet: true });
+export const GET = siteRoute({ resource: "site", permission: "viewSite", query: memberListQuery({ wholeSet: true }) }, async ({ site, query }) => {
+  const { sort, dir, filters } = query;
   const page = await listMembers({ siteId: site.id, filters, sort, dir, limit: MAX_LABELS });
   if (page.items.length === 0) throw new ValidationError({ _: "No member matches these filters, so there is no label to print." }, "No member matches these filters.");
   if (page.nextCursor)
@@ -43,12 +39,8 @@ export const GET = apiHandler<{ siteId: string }>(async (req, { params }) => {
   return pdfResponse(site, page.items);
 });
 
-export const POST = apiHandler<{ siteId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const { site } = await assertSitePermission(user, params.siteId, "viewSite");
-  const parsed = labelsRequestSchema.safeParse(await readJson(req));
-  if (!parsed.success) throw new ValidationError(fieldErrorsFromZod(parsed.error.issues));
-  const ids = [...new Set(parsed.data.memberIds)];
+export const POST = siteRoute({ resource: "site", permission: "viewSite", body: labelsRequestSchema }, async ({ site, input }) => {
+  const ids = [...new Set(input.memberIds)];
   const items = await getMembersByIds({ siteId: site.id, ids });
   if (items.length !== ids.length) {
     const missing = ids.length - items.length;

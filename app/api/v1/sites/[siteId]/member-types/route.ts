@@ -1,17 +1,14 @@
 import { listMemberTypes } from "@/db/queries/member-types";
-import { apiHandler, created, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { getSiteAccess } from "@/lib/authz";
+import { created } from "@/lib/api";
+import { siteRoute } from "@/lib/api/route";
 import { createMemberType } from "@/lib/register/member-types";
+import { memberTypeSchema } from "@/lib/validations/member-type";
 
-export const GET = apiHandler<{ siteId: string }>(async (_req, { params }) => {
-  const user = await requireApiUser();
-  const { site } = await getSiteAccess(user, params.siteId);
-  return { items: await listMemberTypes({ organisationId: site.organisationId }) };
-});
+/** The organisation's library, seen from one of its sites. */
+export const GET = siteRoute({ resource: "site", permission: "viewSite" }, async ({ site }) => ({
+  items: await listMemberTypes({ organisationId: site.organisationId }),
+}));
 
-export const POST = apiHandler<{ siteId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const input = await readJson(req);
-  return created(await createMemberType({ user, siteId: params.siteId, input }));
-});
+export const POST = siteRoute({ resource: "site", permission: "manageLibrary", body: memberTypeSchema }, async ({ user, site, input }) =>
+  created(await createMemberType({ user, site, input })),
+);

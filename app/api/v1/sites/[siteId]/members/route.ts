@@ -1,12 +1,11 @@
-import { apiHandler, created, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
+import { created } from "@/lib/api";
+import { siteRoute } from "@/lib/api/route";
 import { createMember } from "@/lib/register/members";
+import { memberCreateSchema } from "@/lib/validations/member";
 
 export { GET } from "@/lib/register/list-members-handler";
 
 /** Logs a member: 201 { member, check } — or 422 with field errors and nothing stored. */
-export const POST = apiHandler<{ siteId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const input = await readJson(req);
-  return created(await createMember({ user, siteId: params.siteId, input, source: "api" }));
-});
+export const POST = siteRoute({ resource: "site", permission: "logMember", body: memberCreateSchema }, async ({ user, site, input }) =>
+  created(await createMember({ user, site, input, source: "api" })),
+);

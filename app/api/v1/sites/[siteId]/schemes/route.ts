@@ -1,17 +1,11 @@
 import { listSchemes } from "@/db/queries/schemes";
-import { apiHandler, created, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { getSiteAccess } from "@/lib/authz";
+import { created } from "@/lib/api";
+import { siteRoute } from "@/lib/api/route";
 import { createScheme } from "@/lib/register/schemes";
+import { schemeSchema } from "@/lib/validations/scheme";
 
-export const GET = apiHandler<{ siteId: string }>(async (_req, { params }) => {
-  const user = await requireApiUser();
-  const { site } = await getSiteAccess(user, params.siteId);
-  return { items: await listSchemes({ siteId: site.id }) };
-});
+export const GET = siteRoute({ resource: "site", permission: "viewSite" }, async ({ site }) => ({ items: await listSchemes({ siteId: site.id }) }));
 
-export const POST = apiHandler<{ siteId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const input = await readJson(req);
-  return created(await createScheme({ user, siteId: params.siteId, input }));
-});
+export const POST = siteRoute({ resource: "site", permission: "manageSchemes", body: schemeSchema }, async ({ user, site, input }) =>
+  created(await createScheme({ user, site, input })),
+);

@@ -1,17 +1,11 @@
 import { listZones } from "@/db/queries/zones";
-import { apiHandler, created, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { getSiteAccess } from "@/lib/authz";
+import { created } from "@/lib/api";
+import { siteRoute } from "@/lib/api/route";
 import { createZone } from "@/lib/register/schemes";
+import { zoneSchema } from "@/lib/validations/zone";
 
-export const GET = apiHandler<{ siteId: string }>(async (_req, { params }) => {
-  const user = await requireApiUser();
-  const { site } = await getSiteAccess(user, params.siteId);
-  return { items: await listZones({ siteId: site.id }) };
-});
+export const GET = siteRoute({ resource: "site", permission: "viewSite" }, async ({ site }) => ({ items: await listZones({ siteId: site.id }) }));
 
-export const POST = apiHandler<{ siteId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const input = await readJson(req);
-  return created(await createZone({ user, siteId: params.siteId, input }));
-});
+export const POST = siteRoute({ resource: "site", permission: "manageZones", body: zoneSchema }, async ({ user, site, input }) =>
+  created(await createZone({ user, site, input })),
+);

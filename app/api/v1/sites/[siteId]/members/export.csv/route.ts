@@ -1,17 +1,13 @@
 // GET /api/v1/sites/{siteId}/members/export.csv?(the register's filters and sort) → every matching
 // member as CSV, streamed a thousand rows at a time (not just the page on screen).
 import { iterateMembers } from "@/db/queries/member-list";
-import { apiHandler } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { assertSitePermission } from "@/lib/authz";
+import { siteRoute } from "@/lib/api/route";
 import { csvHeader, csvRows } from "@/lib/register/members-csv";
-import { parseMemberListRequest } from "@/lib/register/member-query";
+import { memberListQuery } from "@/lib/register/member-query";
 
-export const GET = apiHandler<{ siteId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const { site } = await assertSitePermission(user, params.siteId, "viewSite");
-  // Export is always everything the filters show, whatever page the screen was on.
-  const { sort, dir, filters } = parseMemberListRequest(req, { wholeSet: true });
+// Export is always everything the filters show, whatever page the screen was on.
+export const GET = siteRoute({ resource: "site", permission: "viewSite", query: memberListQuery({ wholeSet: true }) }, async ({ site, query }) => {
+  const { sort, dir, filters } = query;
 
   const batches = iterateMembers({ siteId: site.id, filters, sort, dir, batchSize: 1000 });
   const encoder = new TextEncoder();

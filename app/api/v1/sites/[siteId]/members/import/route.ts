@@ -2,9 +2,7 @@
 // "file" field). All rows or none: 201 with counts, or 422 with every problem as { row, field, reason }.
 // GET returns the template CSV.
 import { NextResponse } from "next/server";
-import { apiHandler } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { assertSitePermission } from "@/lib/authz";
+import { siteRoute } from "@/lib/api/route";
 import { ValidationError } from "@/lib/errors";
 import { importMembers, ImportRejectedError, MAX_IMPORT_BYTES } from "@/lib/register/import-members";
 import { getRegisterFilterOptions } from "@/db/queries/member-list";
@@ -41,12 +39,11 @@ async function readCsv(req: Request): Promise<string> {
   );
 }
 
-export const POST = apiHandler<{ siteId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  await assertSitePermission(user, params.siteId, "importMembers");
+// bodyMode "raw": the CSV (or multipart form) is read here, after the seam has checked the role.
+export const POST = siteRoute({ resource: "site", permission: "importMembers", bodyMode: "raw" }, async ({ req, user, site }) => {
   const csv = await readCsv(req);
   try {
-    const result = await importMembers({ user, siteId: params.siteId, csv });
+    const result = await importMembers({ user, site, csv });
     return NextResponse.json(result, { status: 201 });
   } catch (e) {
     if (e instanceof ImportRejectedError)
@@ -55,9 +52,7 @@ export const POST = apiHandler<{ siteId: string }>(async (req, { params }) => {
   }
 });
 
-export const GET = apiHandler<{ siteId: string }>(async (_req, { params }) => {
-  const user = await requireApiUser();
-  const { site } = await assertSitePermission(user, params.siteId, "viewSite");
+export const GET = siteRoute({ resource: "site", permission: "viewSite" }, async ({ site }) => {
   const o = await getRegisterFilterOptions({ siteId: site.id, organisationId: site.organisationId });
   const template = importTemplate({ zone: o.zones[0]?.name, scheme: o.schemes[0]?.reference, type: o.types[0]?.name });
   return new Response(`\uFEFF${template}`, {

@@ -1,9 +1,7 @@
-import { apiHandler, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
+import { siteRoute } from "@/lib/api/route";
 import { editScheme } from "@/lib/register/schemes";
+import { schemeSchema } from "@/lib/validations/scheme";
 
-export const PATCH = apiHandler<{ siteId: string; schemeId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const input = await readJson(req);
-  return editScheme({ user, siteId: params.siteId, schemeId: params.schemeId, input });
-});
+export const PATCH = siteRoute({ resource: "scheme", permission: "manageSchemes", body: schemeSchema }, async ({ user, site, resource: scheme, input }) =>
+  editScheme({ user, site, scheme, input }),
+);

@@ -1,9 +1,7 @@
-import { apiHandler, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
+import { siteRoute } from "@/lib/api/route";
 import { editZone } from "@/lib/register/schemes";
+import { zoneSchema } from "@/lib/validations/zone";
 
-export const PATCH = apiHandler<{ siteId: string; zoneId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const input = await readJson(req);
-  return editZone({ user, siteId: params.siteId, zoneId: params.zoneId, input });
-});
+export const PATCH = siteRoute({ resource: "zone", permission: "manageZones", body: zoneSchema }, async ({ user, site, resource: zone, input }) =>
+  editZone({ user, site, zone, input }),
+);
