@@ -41,6 +41,31 @@ async function readJsonObject(req: Request, optional: boolean): Promise<Record<s
   return body as Record<string, unknown>;
 }
 
+/**
+ * A route without a body schema ignores what it is sent, but a body that is not JSON at all is bad
+ * input (422, nothing done) rather than silently dropped. Empty bodies and `{}` are fine.
+ */
+async function refuseNonJsonBody(req: Request): Promise<void> {
+  if (req.method === "GET" || req.method === "HEAD") return;
+  const text = await req.text();
+  if (!text.trim()) return;
+  try {
+    JSON.parse(text);
+  } catch {
+    throw new ValidationError({ _: "The request body must be JSON (or empty)." }, "The request body must be JSON (or empty).");
+  }
+}
+
+/** Reads the body as the route declared it (after the role check, so a refused caller's body is never read). */
+async function readBody<T>(req: Request, parser: Parser<T> | undefined, bodyMode: RouteMeta["body"]): Promise<T | undefined> {
+  if (bodyMode === "raw") return undefined;
+  if (bodyMode === "none" || !parser) {
+    await refuseNonJsonBody(req);
+    return undefined;
+  }
+  return runParser(parser, await readJsonObject(req, bodyMode === "optional-json"));
+}
+
 /** Query strings are read as an object of strings; a key given twice keeps every value as an array. */
 function readQuery(req: Request): Record<string, string | string[]> {
   const out: Record<string, string | string[]> = {};
@@ -58,7 +83,13 @@ type BodyMeta = {
   parser?: Parser;
 };
 export type RouteMeta =
-  | ({ scope: "site"; resource: ResourceKind; permission: PermissionName } & BodyMeta)
+  | ({
+      scope: "site";
+      resource: ResourceKind;
+      permission: PermissionName;
+      /** A record-specific rule on top of the role (`authorize`): an allowed role may still be refused. */
+      recordRule: boolean;
+    } & BodyMeta)
   | ({ scope: "user"; permission?: PermissionName } & BodyMeta)
   | ({ scope: "public" } & BodyMeta);
 
@@ -103,12 +134,10 @@ export function siteRoute<K extends ResourceKind, B extends Parser | undefined =
     const base = { req, params, user, site: loaded.site, roles: loaded.roles, resource: loaded.resource as ResourceOf<K>, may };
     if (spec.authorize) await spec.authorize({ ...base, input: undefined, query: undefined });
     const query = (spec.query ? runParser(spec.query, readQuery(req)) : undefined) as Parsed<Q>;
-    const input = (
-      spec.body && bodyMode !== "raw" ? runParser(spec.body, await readJsonObject(req, bodyMode === "optional-json")) : undefined
-    ) as Parsed<B>;
+    const input = (await readBody(req, spec.body, bodyMode)) as Parsed<B>;
     return fn({ ...base, input, query });
   });
-  const meta: RouteMeta = { scope: "site", resource: spec.resource, permission: spec.permission, body: bodyMode, parser: spec.body };
+  const meta: RouteMeta = { scope: "site", resource: spec.resource, permission: spec.permission, recordRule: Boolean(spec.authorize), body: bodyMode, parser: spec.body };
   return Object.assign(handler, { meta });
 }
 
@@ -132,9 +161,7 @@ export function userRoute<B extends Parser | undefined = undefined, Q extends Pa
       if (!sites.some((s) => rolesAllowPure(s.roles as SiteRole[], permission))) throw new ForbiddenError(spec.forbidden);
     }
     const query = (spec.query ? runParser(spec.query, readQuery(req)) : undefined) as Parsed<Q>;
-    const input = (
-      spec.body && bodyMode !== "raw" ? runParser(spec.body, await readJsonObject(req, bodyMode === "optional-json")) : undefined
-    ) as Parsed<B>;
+    const input = (await readBody(req, spec.body, bodyMode)) as Parsed<B>;
     return fn({ req, params, user, input, query });
   });
   const meta: RouteMeta = { scope: "user", permission: spec.permission, body: bodyMode, parser: spec.body };
@@ -150,9 +177,7 @@ export function publicRoute<B extends Parser | undefined = undefined>(
 ) {
   const bodyMode: RouteMeta["body"] = spec.bodyMode ?? (spec.body ? "json" : "none");
   const handler = apiHandler<Record<string, string>>(async (req, { params }) => {
-    const input = (
-      spec.body && bodyMode !== "raw" ? runParser(spec.body, await readJsonObject(req, bodyMode === "optional-json")) : undefined
-    ) as Parsed<B>;
+    const input = (await readBody(req, spec.body, bodyMode)) as Parsed<B>;
     return fn({ req, params, input });
   });
   const meta: RouteMeta = { scope: "public", body: bodyMode, parser: spec.body };
