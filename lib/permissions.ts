@@ -32,6 +32,8 @@ export const PERMISSIONS = {
   triggerInspections: ["coordinator"],
   viewAlerts: ALL_ROLES,
   managePeople: ["admin"],
+  /** A site's name, code and policies (inspection interval, permit validity, warning time, units, basis); archiving. */
+  manageSite: ["admin"],
 } as const satisfies Record<string, readonly SiteRole[]>;
 
 export type PermissionName = keyof typeof PERMISSIONS;

@@ -3,6 +3,7 @@
 // such a record exists. Add a kind here when a route acts on a new kind of record.
 import "server-only";
 import { getAlertForUser } from "@/db/queries/alerts";
+import { getInvitationForOrg } from "@/db/queries/invitations";
 import { getMemberForUser } from "@/db/queries/members";
 import { getDelegationForUser, getPermitForUser } from "@/db/queries/permits";
 import { getPhotoForUser } from "@/db/queries/photos";
@@ -87,6 +88,16 @@ export const RESOURCES = {
       if (!alert) throw new NotFoundError("That alert");
       const access = await accessOr404(user, alert.siteId, "That alert");
       return { ...access, resource: alert };
+    },
+  },
+  invitation: {
+    param: "invitationId",
+    async load(user: SessionUser, params: Record<string, string>) {
+      const invitationId = idOr404(params, "invitationId", "That invitation");
+      const invitation = await getInvitationForOrg({ invitationId, organisationId: user.organisationId });
+      if (!invitation?.siteId || (params.siteId !== undefined && params.siteId !== invitation.siteId)) throw new NotFoundError("That invitation");
+      const access = await accessOr404(user, invitation.siteId, "That invitation");
+      return { ...access, resource: invitation };
     },
   },
 } as const;
