@@ -6,7 +6,7 @@
 import { devices, expect, test, type Browser, type Page } from "@playwright/test";
 
 const INBOX_URL = process.env.INBOX_URL ?? "http://127.0.0.1:2080";
-const PHONE = { ...devices["Pixel 7"] };
+const PHONE = { ...devices["Pixel 7"], defaultBrowserType: undefined };
 const DESK = { viewport: { width: 1366, height: 850 } };
 const stamp = Date.now().toString(36);
 const admin = { name: "Marta Kowalczyk", email: `admin-${stamp}@brightwell.example`, password: "copper kettle signal 82" };
@@ -26,7 +26,8 @@ async function inviteLink(email: string) {
 }
 
 async function newPage(browser: Browser, kind: "phone" | "desk"): Promise<Page> {
-  const ctx = await browser.newContext(kind === "phone" ? PHONE : DESK);
+  const baseURL = test.info().project.use.baseURL;
+  const ctx = await browser.newContext({ ...(kind === "phone" ? PHONE : DESK), baseURL });
   return ctx.newPage();
 }
 
@@ -102,7 +103,7 @@ test("a contractor goes from an empty installation to a working team", async ({ 
   const c = await newPage(browser, "desk");
   await accept(c, await inviteLink(coordinator.email), coordinator, siteName);
   await c.getByRole("navigation", { name: "Main" }).locator("visible=true").getByRole("link", { name: "Register" }).click();
-  await expect(c.getByText(tag).first()).toBeVisible();
+  await expect(c.getByRole("link", { name: tag }).locator("visible=true").first()).toBeVisible();
 
   // The admin sees both people with their roles; no invitation is left waiting.
   await a.reload();
