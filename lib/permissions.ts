@@ -41,3 +41,6 @@ export type PermissionName = keyof typeof PERMISSIONS;
 export function rolesAllowPure(roles: readonly SiteRole[], permission: PermissionName): boolean {
   return roles.some((r) => (PERMISSIONS[permission] as readonly SiteRole[]).includes(r));
 }
+
+/** What still works on an archived (read-only) site: reading, the calculator, and restoring it. */
+export const ARCHIVED_SITE_PERMISSIONS: readonly PermissionName[] = ["viewSite", "calculate", "viewAlerts", "manageSite"];

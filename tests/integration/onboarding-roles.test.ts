@@ -82,8 +82,8 @@ describe("sites", () => {
     const code = `A${Date.now().toString(36).slice(-6).toUpperCase()}`;
     const made = await admin.json<{ site: { id: string } }>("/api/v1/sites", { method: "POST", body: { name: "Short-lived Yard", code, units: "si", basis: "eurocode" } });
     const id = made.body.site.id;
-    const zone = await admin.json(`/api/v1/sites/${id}/invitations`, { method: "POST", body: { email: freshEmail("arch"), roles: ["engineer"] } });
-    expect(zone.status).toBe(201);
+    const invited = await admin.json(`/api/v1/sites/${id}/invitations`, { method: "POST", body: { email: freshEmail("arch"), roles: ["engineer"] } });
+    expect(invited.status).toBe(201);
     expect((await admin.json(`/api/v1/sites/${id}`, { method: "PATCH", body: { archived: true } })).body).toMatchObject({ site: { archived: true } });
     const listed = await admin.json<{ items: { id: string }[] }>("/api/v1/sites");
     expect(listed.body.items.map((s) => s.id)).not.toContain(id);
@@ -93,6 +93,9 @@ describe("sites", () => {
     const write = await admin.json<{ error: { message: string } }>(`/api/v1/sites/${id}/invitations`, { method: "POST", body: { email: freshEmail("arch"), roles: ["engineer"] } });
     expect(write.status).toBe(409);
     expect(write.body.error.message).toMatch(/archived and read-only/);
+    const zone = await admin.json<{ error: { message: string } }>(`/api/v1/sites/${id}/zones`, { method: "POST", body: { name: "Level 1" } });
+    expect(zone.status).toBe(409);
+    expect((await admin.json<{ items: unknown[] }>(`/api/v1/sites/${id}/zones`)).body.items).toHaveLength(0);
     const pending = await admin.json<{ items: unknown[] }>(`/api/v1/sites/${id}/invitations`);
     expect(pending.status).toBe(200);
     expect(pending.body.items).toHaveLength(1);

@@ -6,7 +6,7 @@ import { listPendingInvitations } from "@/db/queries/invitations";
 import { listSitePeople } from "@/db/queries/memberships";
 import { formatDateTime } from "@/lib/auth/format";
 import { loadSitePage } from "@/lib/auth/site-page";
-import { ALL_ROLES, ROLE_LABELS } from "@/lib/permissions";
+import { ALL_ROLES, ROLE_LABELS, rolesAllowPure } from "@/lib/permissions";
 
 export const metadata: Metadata = { title: "People" };
 
@@ -14,8 +14,9 @@ const roleOptions = ALL_ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
 
 export default async function PeoplePage({ params }: { params: Promise<{ siteId: string }> }) {
   const { siteId } = await params;
-  const { site, user, may } = await loadSitePage(siteId);
-  if (!may("managePeople")) return <Forbidden what="Managing people is for organisation admins." />;
+  const { site, user, roles } = await loadSitePage(siteId);
+  // Readable on an archived site too (changes are refused there, see below).
+  if (!rolesAllowPure(roles, "managePeople")) return <Forbidden what="Managing people is for organisation admins." />;
   const [people, invitations] = await Promise.all([listSitePeople({ siteId: site.id }), listPendingInvitations({ siteId: site.id })]);
   const readOnly = !!site.archivedAt;
   return (
