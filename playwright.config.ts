@@ -26,13 +26,21 @@ export default defineConfig({
   projects: [
     {
       name: "phone",
+      testIgnore: /onboarding-empty\.spec\.ts/,
       use: { ...devices["Pixel 7"], browserName: "chromium", launchOptions: chromium },
     },
     {
       name: "desktop",
       // Phone-only journeys (logging a member from the camera) run in the phone project alone.
-      testIgnore: /log-member\.spec\.ts/,
+      testIgnore: [/log-member\.spec\.ts/, /onboarding-empty\.spec\.ts/],
       use: { browserName: "chromium", viewport: { width: 1366, height: 850 }, launchOptions: chromium },
+    },
+    {
+      // The first-run journey against the second, empty installation (scripts/test.mjs starts it
+      // with STRUTWISE_DEMO=0); each person in it uses a phone or a desktop browser.
+      name: "empty",
+      testMatch: /onboarding-empty\.spec\.ts/,
+      use: { browserName: "chromium", baseURL: process.env.EMPTY_APP_URL ?? "http://127.0.0.1:3105", launchOptions: chromium },
     },
   ],
 });

@@ -1,7 +1,9 @@
 // Runs before every page and API request: security headers in one place, a per-request CSP nonce,
-// the Origin check for cookie-carrying writes and request body limits. Never the authorisation
+// the Origin check for cookie-carrying writes, request body limits, and the requested address for
+// deep links that survive sign-in. Never the authorisation
 // boundary — that is lib/api/route.ts and lib/auth on the server.
 import { NextResponse, type NextRequest } from "next/server";
+import { REQUESTED_PATH_HEADER } from "@/lib/auth/callback";
 import { baseSecurityHeaders, bodyLimitFor, contentSecurityPolicy, originAllowed, originOf } from "@/lib/security/headers";
 
 const appUrl = process.env.APP_URL ?? process.env.NEXTAUTH_URL ?? "http://127.0.0.1:3000";
@@ -42,6 +44,9 @@ export function proxy(req: NextRequest) {
   const requestHeaders = new Headers(req.headers);
   requestHeaders.set("x-nonce", nonce);
   requestHeaders.set("Content-Security-Policy", csp);
+  // The address a page asked for, so a signed-out person who opens a QR label's or an e-mail's
+  // link comes back to exactly that page after signing in (lib/auth: requireUser).
+  requestHeaders.set(REQUESTED_PATH_HEADER, `${pathname}${req.nextUrl.search}`);
   const res = NextResponse.next({ request: { headers: requestHeaders } });
   return withHeaders(res, { "Content-Security-Policy": csp });
 }

@@ -39,6 +39,9 @@ export function AppShell({
               <Link href="/sites" className="flex min-h-touch items-center rounded px-2 hover:bg-paper-sunk">
                 All my sites
               </Link>
+              <Link href="/account" className="flex min-h-touch items-center rounded px-2 hover:bg-paper-sunk">
+                Change password
+              </Link>
               <Link href="/sign-out" className="flex min-h-touch items-center rounded px-2 hover:bg-paper-sunk">
                 Sign out
               </Link>

@@ -48,6 +48,8 @@ export const users = pgTable(
     /** Organisation admin: manages people, sites and the member library across the organisation. */
     isOrgAdmin: boolean("is_org_admin").notNull().default(false),
     disabledAt: timestamp("disabled_at", { withTimezone: true }),
+    /** Bumped when a person is deactivated or their password is reset: every older session ends. */
+    sessionVersion: integer("session_version").notNull().default(0),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("users_email_unique").on(sql`lower(${t.email})`)],
@@ -76,6 +78,8 @@ export const sites = pgTable("sites", {
   expiryWarningHours: integer("expiry_warning_hours").notNull().default(24),
   /** Last permit number issued on this site; bumped under a row lock so numbers have no gaps. */
   permitCounter: integer("permit_counter").notNull().default(0),
+  /** An archived site is read-only and hidden from lists by default; its data is kept. */
+  archivedAt: timestamp("archived_at", { withTimezone: true }),
   createdAt: createdAt(),
 });
 
@@ -97,12 +101,35 @@ export const invitations = pgTable("invitations", {
   email: text("email").notNull(),
   siteId: uuid("site_id").references(() => sites.id, { onDelete: "cascade" }),
   role: siteRole("role"),
+  /** The name the admin typed for the invitee, offered on the acceptance form. */
+  name: text("name"),
+  /** Every role the invitee gains on the site when they accept. */
+  roles: siteRole("roles").array().notNull().default(sql`'{}'::site_role[]`),
+  /** SHA-256 of the token in the link; the token itself is only ever in the e-mail. */
   tokenHash: text("token_hash").notNull().unique(),
   invitedBy: uuid("invited_by").references(() => users.id),
   expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
   acceptedAt: timestamp("accepted_at", { withTimezone: true }),
+  acceptedBy: uuid("accepted_by").references(() => users.id),
+  revokedAt: timestamp("revoked_at", { withTimezone: true }),
+  lastSentAt: timestamp("last_sent_at", { withTimezone: true }),
+  sendCount: integer("send_count").notNull().default(1),
   createdAt: createdAt(),
 });
+
+/** Single-use links to set a new password (1 hour); only the token's SHA-256 is kept. */
+export const passwordResets = pgTable(
+  "password_resets",
+  {
+    id: id(),
+    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    tokenHash: text("token_hash").notNull().unique(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("password_resets_user").on(t.userId)],
+);
 
 // ------------------------------------------------------ design and library
 export const zones = pgTable(

@@ -1,9 +1,9 @@
 // The one answer to "may this user do this on this site?". Every handler and action asks it.
 import "server-only";
 import { getSiteAccessRow } from "@/db/queries/sites";
-import { rolesAllowPure, type PermissionName } from "@/lib/permissions";
+import { ARCHIVED_SITE_PERMISSIONS, rolesAllowPure, type PermissionName } from "@/lib/permissions";
 import type { SessionUser } from "@/lib/auth";
-import { ForbiddenError, NotFoundError } from "@/lib/errors";
+import { ConflictError, ForbiddenError, NotFoundError } from "@/lib/errors";
 
 export { ALL_ROLES, PERMISSIONS, ROLE_LABELS } from "@/lib/permissions";
 export type Permission = PermissionName;
@@ -29,5 +29,7 @@ export async function getSiteAccess(user: SessionUser, siteId: string) {
 export async function assertSitePermission(user: SessionUser, siteId: string, permission: Permission) {
   const access = await getSiteAccess(user, siteId);
   if (!rolesAllow(access.roles, permission)) throw new ForbiddenError();
+  if (access.site.archivedAt && !ARCHIVED_SITE_PERMISSIONS.includes(permission))
+    throw new ConflictError("This site is archived and read-only. An organisation admin can restore it from the site's settings.");
   return access;
 }

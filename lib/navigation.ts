@@ -2,7 +2,7 @@
 import type { SiteRole } from "@/db/schema";
 import { rolesAllowPure, type PermissionName } from "@/lib/permissions";
 
-export type NavIcon = "overview" | "register" | "add" | "permit" | "inspect" | "alert" | "calc" | "library" | "scheme" | "people" | "sites";
+export type NavIcon = "overview" | "register" | "add" | "permit" | "inspect" | "alert" | "calc" | "library" | "scheme" | "people" | "sites" | "settings";
 export type NavItem = { href: string; label: string; icon: NavIcon; primary?: boolean };
 
 type NavDef = { path: string; label: string; icon: NavIcon; permission: PermissionName; primary?: boolean; primaryFor?: readonly SiteRole[] };
@@ -20,6 +20,7 @@ const SITE_NAV: NavDef[] = [
   { path: "/library", label: "Library", icon: "library", permission: "manageLibrary" },
   { path: "/schemes", label: "Schemes", icon: "scheme", permission: "manageSchemes" },
   { path: "/people", label: "People", icon: "people", permission: "managePeople" },
+  { path: "/settings", label: "Site settings", icon: "settings", permission: "manageSite" },
 ];
 
 export function siteNav(siteId: string, roles: readonly SiteRole[]): NavItem[] {

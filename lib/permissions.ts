@@ -32,6 +32,8 @@ export const PERMISSIONS = {
   triggerInspections: ["coordinator"],
   viewAlerts: ALL_ROLES,
   managePeople: ["admin"],
+  /** A site's name, code and policies (inspection interval, permit validity, warning time, units, basis); archiving. */
+  manageSite: ["admin"],
 } as const satisfies Record<string, readonly SiteRole[]>;
 
 export type PermissionName = keyof typeof PERMISSIONS;
@@ -39,3 +41,6 @@ export type PermissionName = keyof typeof PERMISSIONS;
 export function rolesAllowPure(roles: readonly SiteRole[], permission: PermissionName): boolean {
   return roles.some((r) => (PERMISSIONS[permission] as readonly SiteRole[]).includes(r));
 }
+
+/** What still works on an archived (read-only) site: reading, the calculator, and restoring it. */
+export const ARCHIVED_SITE_PERMISSIONS: readonly PermissionName[] = ["viewSite", "calculate", "viewAlerts", "manageSite"];

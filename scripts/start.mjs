@@ -15,7 +15,9 @@ await ensureS3(p);
 await ensureMailCatcher(p);
 log("applying migrations…");
 runTsx(path.join(root, "db", "migrate.ts"), p.env);
-runTsx(path.join(root, "db", "seed", "index.ts"), p.env, ["--if-empty"]);
+// STRUTWISE_DEMO=0 starts with an empty database: the app then opens its one-time setup page.
+const demo = process.env.STRUTWISE_DEMO !== "0";
+if (demo) runTsx(path.join(root, "db", "seed", "index.ts"), p.env, ["--if-empty"]);
 if (!dev && needsBuild(p.distDir)) build(p);
 await ensureWorker(p);
 
@@ -23,6 +25,11 @@ const banner = () => {
   log("");
   log(`Strutwise is running at ${p.appUrl}${dev ? " (development, hot reload)" : ""}`);
   log(`Local inbox (every e-mail the app sends): ${p.env.INBOX_URL}`);
+  if (!demo) {
+    log(`No demo data (STRUTWISE_DEMO=0). A new database opens the setup page: ${p.appUrl}/setup`);
+    log("Stop everything with: npm run stop");
+    return;
+  }
   log("Demo sign-ins (password for all: strutwise-demo):");
   for (const [email, role] of [
     ["admin@demo.example", "organisation admin"],

@@ -25,6 +25,28 @@ for (const d of [`s3-${p.name}`, `mail-${p.name}`]) fs.rmSync(path.join(dataDir,
 await ensureS3(p);
 await ensureMailCatcher(p);
 
+// A second, EMPTY installation (STRUTWISE_DEMO=0) for the first-run journey: its own database
+// and app port, sharing this stack's build, S3 fake and SMTP catcher.
+const emptyDb = `${p.dbName}_empty`;
+const emptyPort = p.appPort + 5;
+const emptyUrl = `http://127.0.0.1:${emptyPort}`;
+const empty = {
+  ...p,
+  name: `${p.name}-empty`,
+  dbName: emptyDb,
+  appPort: emptyPort,
+  appUrl: emptyUrl,
+  env: {
+    ...p.env,
+    DATABASE_URL: `postgres://postgres@127.0.0.1:${p.pgPort}/${emptyDb}`,
+    APP_URL: emptyUrl,
+    NEXTAUTH_URL: emptyUrl,
+    STRUTWISE_DEMO: "0",
+  },
+};
+const emptyWanted = () => want("e2e") && (files("e2e").length === 0 || files("e2e").some((f) => f.includes("onboarding-empty")));
+for (const s of ["app", "worker"]) await stopService(`${empty.name}-${s}`);
+
 const resetDatabase = () => {
   ensureDatabase(p, { fresh: true });
   runTsx(path.join(root, "db", "migrate.ts"), p.env);
@@ -86,6 +108,13 @@ try {
     if (want("integration")) resetDatabase();
     await ensureWorker(p);
     await startApp(p);
+    if (emptyWanted()) {
+      ensureDatabase(empty, { fresh: true });
+      runTsx(path.join(root, "db", "migrate.ts"), empty.env);
+      await ensureWorker(empty);
+      await startApp(empty);
+      env.EMPTY_APP_URL = emptyUrl;
+    }
     env.PLAYWRIGHT_JSON_OUTPUT_NAME = reportFile("e2e");
     step("end-to-end tests (Chromium)", bin("playwright"), ["test", "--reporter=list,json", ...files("e2e")]);
   }
@@ -93,7 +122,10 @@ try {
   failed = true;
   log(String(e instanceof Error ? e.message : e));
 } finally {
-  if (!process.env.KEEP_TEST_STACK) for (const s of ["app", "worker", "s3", "mail"]) await stopService(`${p.name}-${s}`);
+  if (!process.env.KEEP_TEST_STACK) {
+    for (const s of ["app", "worker"]) await stopService(`${empty.name}-${s}`);
+    for (const s of ["app", "worker", "s3", "mail"]) await stopService(`${p.name}-${s}`);
+  }
 }
 const totals = summary();
 log(failed ? "some tests FAILED" : "all tests passed");

@@ -1,7 +1,19 @@
 import "server-only";
-import { and, count, eq } from "drizzle-orm";
+import { and, count, eq, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
 import { members, memberships, permits, sites, type SiteRole } from "@/db/schema";
+
+export type SiteValues = {
+  name: string;
+  code: string;
+  address: string | null;
+  unitSystem: "si" | "us";
+  designCode: "en1993" | "aisc360-lrfd" | "aisc360-asd";
+  inspectionIntervalDays: number;
+  permitValidityHours: number;
+  expiryWarningHours: number;
+  timezone: string;
+};
 import type { SessionUser } from "./users";
 
 const siteColumns = {
@@ -17,6 +29,7 @@ const siteColumns = {
   inspectionIntervalDays: sites.inspectionIntervalDays,
   plumbToleranceMm: sites.plumbToleranceMm,
   expiryWarningHours: sites.expiryWarningHours,
+  archivedAt: sites.archivedAt,
 };
 
 export type SiteSummary = Awaited<ReturnType<typeof getSiteAccessRow>>;
@@ -52,4 +65,29 @@ export async function getSiteCounts({ siteId }: { siteId: string }, tx: DbOrTx =
     permits: Object.fromEntries(permitRows.map((r) => [r.status, r.n])) as Record<string, number>,
     failing: failing?.n ?? 0,
   };
+}
+
+export async function createSite({ organisationId, values }: { organisationId: string; values: SiteValues }, tx: DbOrTx = db) {
+  const [row] = await tx.insert(sites).values({ organisationId, ...values }).returning(siteColumns);
+  return row!;
+}
+
+export async function updateSite(
+  { siteId, values }: { siteId: string; values: Partial<SiteValues> & { archivedAt?: Date | null } },
+  tx: DbOrTx = db,
+) {
+  const [row] = await tx.update(sites).set(values).where(eq(sites.id, siteId)).returning(siteColumns);
+  return row!;
+}
+
+/** Another site of the organisation already using this code (codes label QR sheets and permits). */
+export async function siteCodeTaken(
+  { organisationId, code, exceptSiteId }: { organisationId: string; code: string; exceptSiteId?: string },
+  tx: DbOrTx = db,
+) {
+  const rows = await tx
+    .select({ id: sites.id })
+    .from(sites)
+    .where(and(eq(sites.organisationId, organisationId), sql`lower(${sites.code}) = ${code.toLowerCase()}`));
+  return rows.some((r) => r.id !== exceptSiteId);
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq, sql } from "drizzle-orm";
+import { and, count, eq, isNull, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
 import { memberships, organisations, signInThrottle, sites, users } from "@/db/schema";
 
@@ -10,18 +10,33 @@ export type SessionUser = {
   organisationId: string;
   organisationName: string;
   isOrgAdmin: boolean;
+  sessionVersion: number;
 };
 
 export async function getUserForSignIn({ email }: { email: string }, tx: DbOrTx = db) {
   const [row] = await tx
-    .select({ id: users.id, email: users.email, name: users.name, passwordHash: users.passwordHash, disabledAt: users.disabledAt })
+    .select({
+      id: users.id,
+      email: users.email,
+      name: users.name,
+      passwordHash: users.passwordHash,
+      disabledAt: users.disabledAt,
+      sessionVersion: users.sessionVersion,
+    })
     .from(users)
     .where(sql`lower(${users.email}) = ${email.toLowerCase()}`)
     .limit(1);
   return row ?? null;
 }
 
-export async function getSessionUser({ id }: { id: string }, tx: DbOrTx = db): Promise<SessionUser | null> {
+/**
+ * The signed-in person, read on every request. `sessionVersion` is the one in their session
+ * cookie: a deactivation or password reset bumps the stored one, so every older session ends.
+ */
+export async function getSessionUser(
+  { id, sessionVersion }: { id: string; sessionVersion?: number },
+  tx: DbOrTx = db,
+): Promise<SessionUser | null> {
   const [row] = await tx
     .select({
       id: users.id,
@@ -31,28 +46,41 @@ export async function getSessionUser({ id }: { id: string }, tx: DbOrTx = db): P
       organisationName: organisations.name,
       isOrgAdmin: users.isOrgAdmin,
       disabledAt: users.disabledAt,
+      sessionVersion: users.sessionVersion,
     })
     .from(users)
     .innerJoin(organisations, eq(organisations.id, users.organisationId))
     .where(eq(users.id, id))
     .limit(1);
   if (!row || row.disabledAt) return null;
+  if (sessionVersion !== undefined && sessionVersion !== row.sessionVersion) return null;
   const { disabledAt: _disabled, ...user } = row;
   return user;
 }
 
 /** The sites a user can see, with every role they hold there. Org admins see all their organisation's sites. */
-export async function listUserSites({ user }: { user: SessionUser }, tx: DbOrTx = db) {
+export async function listUserSites(
+  { user, includeArchived = false }: { user: SessionUser; includeArchived?: boolean },
+  tx: DbOrTx = db,
+) {
   const rows = await tx
-    .select({ id: sites.id, name: sites.name, code: sites.code, address: sites.address, role: memberships.role })
+    .select({
+      id: sites.id,
+      name: sites.name,
+      code: sites.code,
+      address: sites.address,
+      archivedAt: sites.archivedAt,
+      role: memberships.role,
+    })
     .from(sites)
     .leftJoin(memberships, and(eq(memberships.siteId, sites.id), eq(memberships.userId, user.id)))
-    .where(eq(sites.organisationId, user.organisationId))
+    .where(and(eq(sites.organisationId, user.organisationId), includeArchived ? undefined : isNull(sites.archivedAt)))
     .orderBy(sites.name);
-  const bySite = new Map<string, { id: string; name: string; code: string; address: string | null; roles: string[] }>();
+  type Row = { id: string; name: string; code: string; address: string | null; archivedAt: Date | null; roles: string[] };
+  const bySite = new Map<string, Row>();
   for (const r of rows) {
     if (!r.role && !user.isOrgAdmin) continue;
-    const s = bySite.get(r.id) ?? { id: r.id, name: r.name, code: r.code, address: r.address, roles: [] };
+    const s = bySite.get(r.id) ?? { id: r.id, name: r.name, code: r.code, address: r.address, archivedAt: r.archivedAt, roles: [] };
     if (r.role && !s.roles.includes(r.role)) s.roles.push(r.role);
     if (user.isOrgAdmin && !s.roles.includes("admin")) s.roles.push("admin");
     bySite.set(r.id, s);
@@ -78,3 +106,94 @@ export async function recordSignInFailure(
 export async function clearSignInFailures({ email }: { email: string }, tx: DbOrTx = db) {
   await tx.delete(signInThrottle).where(eq(signInThrottle.email, email.toLowerCase()));
 }
+
+// ------------------------------------------------------------ onboarding and people
+
+export async function countOrganisations(tx: DbOrTx = db) {
+  const [row] = await tx.select({ n: count() }).from(organisations);
+  return row?.n ?? 0;
+}
+
+/** Serialises first-run setup: two people pressing "Create" at once make one organisation. */
+export async function lockSetup(tx: DbOrTx) {
+  await tx.execute(sql`select pg_advisory_xact_lock(4242001)`);
+}
+
+export async function createOrganisation({ name, slug }: { name: string; slug: string }, tx: DbOrTx = db) {
+  const [row] = await tx.insert(organisations).values({ name, slug }).returning({ id: organisations.id, name: organisations.name });
+  return row!;
+}
+
+export async function createUser(
+  v: { organisationId: string; email: string; name: string; passwordHash: string; isOrgAdmin?: boolean },
+  tx: DbOrTx = db,
+) {
+  const [row] = await tx
+    .insert(users)
+    .values({ ...v, email: v.email.toLowerCase(), isOrgAdmin: v.isOrgAdmin ?? false })
+    .returning({ id: users.id, email: users.email, name: users.name, organisationId: users.organisationId });
+  return row!;
+}
+
+const personColumns = {
+  id: users.id,
+  organisationId: users.organisationId,
+  email: users.email,
+  name: users.name,
+  isOrgAdmin: users.isOrgAdmin,
+  disabledAt: users.disabledAt,
+  sessionVersion: users.sessionVersion,
+};
+
+/** Any account with this address (addresses are unique across the whole installation). */
+export async function getUserByEmail({ email }: { email: string }, tx: DbOrTx = db) {
+  const [row] = await tx.select(personColumns).from(users).where(sql`lower(${users.email}) = ${email.toLowerCase()}`).limit(1);
+  return row ?? null;
+}
+
+/** A person of this organisation, or null (another organisation's person is "not found"). */
+export async function getOrgUser({ userId, organisationId }: { userId: string; organisationId: string }, tx: DbOrTx = db) {
+  const [row] = await tx
+    .select(personColumns)
+    .from(users)
+    .where(and(eq(users.id, userId), eq(users.organisationId, organisationId)))
+    .limit(1);
+  return row ?? null;
+}
+
+export async function getPasswordHash({ userId }: { userId: string }, tx: DbOrTx = db) {
+  const [row] = await tx.select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, userId)).limit(1);
+  return row?.passwordHash ?? null;
+}
+
+/** Sets a new password; `endSessions` also signs the person out everywhere. */
+export async function setPasswordHash(
+  { userId, passwordHash, endSessions }: { userId: string; passwordHash: string; endSessions: boolean },
+  tx: DbOrTx = db,
+) {
+  await tx
+    .update(users)
+    .set({ passwordHash, ...(endSessions ? { sessionVersion: sql`${users.sessionVersion} + 1` } : {}) })
+    .where(eq(users.id, userId));
+}
+
+/** Deactivated: no sign-in, and every session on every device ends at its next request. */
+export async function setUserDisabled({ userId, disabled }: { userId: string; disabled: boolean }, tx: DbOrTx = db) {
+  const [row] = await tx
+    .update(users)
+    .set({ disabledAt: disabled ? new Date() : null, sessionVersion: sql`${users.sessionVersion} + 1` })
+    .where(eq(users.id, userId))
+    .returning(personColumns);
+  return row!;
+}
+
+/** Active organisation admins (for "the last admin cannot remove themselves"). */
+export async function listActiveOrgAdmins({ organisationId }: { organisationId: string }, tx: DbOrTx = db) {
+  return tx
+    .select({ id: users.id })
+    .from(users)
+    .where(and(eq(users.organisationId, organisationId), eq(users.isOrgAdmin, true), isNull(users.disabledAt)));
+}
+
+/** Throttle rows are shared with sign-in under a prefixed key ("reset:…", "change:…"). */
+export const throttleKey = (kind: "reset" | "change", email: string) => `${kind}:${email.toLowerCase()}`;

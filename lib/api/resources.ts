@@ -4,6 +4,7 @@
 import "server-only";
 import { getAlertForUser } from "@/db/queries/alerts";
 import { getMemberType } from "@/db/queries/member-types";
+import { getInvitationForOrg } from "@/db/queries/invitations";
 import { getMemberForUser } from "@/db/queries/members";
 import { getDelegationForUser, getPermitForUser } from "@/db/queries/permits";
 import { getPhotoForUser } from "@/db/queries/photos";
@@ -125,6 +126,16 @@ export const RESOURCES = {
       onSite(user, params, "typeId", "That member type", (site, memberTypeId) =>
         getMemberType({ organisationId: site.organisationId, memberTypeId, includeArchived: true }),
       ),
+  },
+  invitation: {
+    param: "invitationId",
+    async load(user: SessionUser, params: Record<string, string>) {
+      const invitationId = idOr404(params, "invitationId", "That invitation");
+      const invitation = await getInvitationForOrg({ invitationId, organisationId: user.organisationId });
+      if (!invitation?.siteId || (params.siteId !== undefined && params.siteId !== invitation.siteId)) throw new NotFoundError("That invitation");
+      const access = await accessOr404(user, invitation.siteId, "That invitation");
+      return { ...access, resource: invitation };
+    },
   },
 } as const;
 

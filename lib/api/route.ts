@@ -7,7 +7,7 @@ import type { z } from "zod";
 import type { SiteRole } from "@/db/schema";
 import { listUserSites } from "@/db/queries/users";
 import { requireApiUser, type SessionUser } from "@/lib/auth";
-import { fieldErrorsFromZod, ForbiddenError, ValidationError } from "@/lib/errors";
+import { ConflictError, fieldErrorsFromZod, ForbiddenError, ValidationError } from "@/lib/errors";
 import { rolesAllowPure, type PermissionName } from "@/lib/permissions";
 import { apiHandler } from "./index";
 import { RESOURCES, type ResourceKind, type ResourceOf, type Site } from "./resources";
@@ -107,6 +107,7 @@ export type SiteContext<R, I, Q> = {
 };
 
 type BodyMode = "json" | "optional-json" | "raw";
+const READ_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 
 export function siteRoute<K extends ResourceKind, B extends Parser | undefined = undefined, Q extends Parser | undefined = undefined>(
   spec: {
@@ -122,6 +123,8 @@ export function siteRoute<K extends ResourceKind, B extends Parser | undefined =
     /** "optional-json": an empty body stands for {}; "raw": the handler reads `req` itself (CSV, multipart). */
     bodyMode?: BodyMode;
     query?: Q;
+    /** An archived site is read-only: writes answer 409 unless the route says otherwise (restoring the site). */
+    allowArchived?: boolean;
   },
   fn: (ctx: SiteContext<ResourceOf<K>, Parsed<B>, Parsed<Q>>) => Promise<Response | unknown>,
 ) {
@@ -131,6 +134,8 @@ export function siteRoute<K extends ResourceKind, B extends Parser | undefined =
     const loaded = await RESOURCES[spec.resource].load(user, params);
     const may = (p: PermissionName) => rolesAllowPure(loaded.roles, p);
     if (!may(spec.permission)) throw new ForbiddenError(spec.forbidden);
+    if (loaded.site.archivedAt && !spec.allowArchived && !READ_METHODS.has(req.method))
+      throw new ConflictError("This site is archived and read-only. An organisation admin can restore it from the site's settings.");
     const base = { req, params, user, site: loaded.site, roles: loaded.roles, resource: loaded.resource as ResourceOf<K>, may };
     if (spec.authorize) await spec.authorize({ ...base, input: undefined, query: undefined });
     const query = (spec.query ? runParser(spec.query, readQuery(req)) : undefined) as Parsed<Q>;

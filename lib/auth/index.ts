@@ -2,24 +2,35 @@
 import "server-only";
 import { cache } from "react";
 import { getServerSession } from "next-auth";
+import { headers } from "next/headers";
 import { redirect } from "next/navigation";
+import { REQUESTED_PATH_HEADER, safeCallbackPath } from "./callback";
 import { getSessionUser, type SessionUser } from "@/db/queries/users";
 import { UnauthorizedError } from "@/lib/errors";
 import { authOptions } from "./options";
 
 export type { SessionUser };
+export { safeCallbackPath };
 
 export const getCurrentUser = cache(async (): Promise<SessionUser | null> => {
   const session = await getServerSession(authOptions);
-  const id = (session?.user as { id?: string } | undefined)?.id;
-  if (!id) return null;
-  return getSessionUser({ id });
+  const claims = session?.user as { id?: string; sv?: number } | undefined;
+  if (!claims?.id) return null;
+  return getSessionUser({ id: claims.id, sessionVersion: claims.sv ?? 0 });
 });
 
-/** For pages and server actions rendered as pages: sends a signed-out person to sign in. */
+/**
+ * For pages and server actions rendered as pages: sends a signed-out person to sign in, and back
+ * afterwards to exactly the address they opened (the proxy passes it on, query string included,
+ * so a QR label's member or a `?tag=` prefill survives sign-in); `callbackUrl` is the fallback.
+ */
 export async function requireUser(callbackUrl?: string): Promise<SessionUser> {
   const user = await getCurrentUser();
-  if (!user) redirect(callbackUrl ? `/sign-in?callbackUrl=${encodeURIComponent(callbackUrl)}` : "/sign-in");
+  if (!user) {
+    const requested = safeCallbackPath((await headers()).get(REQUESTED_PATH_HEADER));
+    const back = requested ?? safeCallbackPath(callbackUrl);
+    redirect(back ? `/sign-in?callbackUrl=${encodeURIComponent(back)}` : "/sign-in");
+  }
   return user;
 }
 

@@ -21,11 +21,19 @@ export const authOptions: NextAuthOptions = {
   ],
   callbacks: {
     async jwt({ token, user }) {
-      if (user) token.uid = user.id;
+      if (user) {
+        token.uid = user.id;
+        // Checked against the account on every request (lib/auth/index.ts): a deactivation or a
+        // password reset bumps the stored version and ends this session on every device.
+        token.sv = (user as { sessionVersion?: number }).sessionVersion ?? 0;
+      }
       return token;
     },
     async session({ session, token }) {
-      if (session.user && typeof token.uid === "string") (session.user as { id?: string }).id = token.uid;
+      if (session.user && typeof token.uid === "string") {
+        (session.user as { id?: string }).id = token.uid;
+        (session.user as { sv?: number }).sv = typeof token.sv === "number" ? token.sv : 0;
+      }
       return session;
     },
   },

@@ -11,7 +11,7 @@ const MAX_BLOCK_MS = 15 * 60 * 1000;
 
 
 export type SignInOutcome =
-  | { ok: true; user: { id: string; email: string; name: string } }
+  | { ok: true; user: { id: string; email: string; name: string; sessionVersion: number } }
   | { ok: false; reason: "invalid" | "blocked"; message: string };
 
 export function blockDurationMs(failures: number): number {
@@ -38,7 +38,7 @@ export async function checkCredentials(input: unknown, now = new Date()): Promis
   const good = await verifyPassword(parsed.data.password, user?.passwordHash ?? (await dummyHash()));
   if (user && good && !user.disabledAt) {
     if (throttle) await clearSignInFailures({ email });
-    return { ok: true, user: { id: user.id, email: user.email, name: user.name } };
+    return { ok: true, user: { id: user.id, email: user.email, name: user.name, sessionVersion: user.sessionVersion } };
   }
 
   const recent = throttle && now.getTime() - throttle.lastFailureAt.getTime() < WINDOW_MS;
