@@ -15,7 +15,8 @@ export function MemberStateBanner({ state, inspectHref }: { state: MemberState; 
   return (
     <section aria-labelledby="state-h" className={`break-words rounded-xl border-2 p-4 ${t.box}`} data-testid="member-state">
       <h2 id="state-h" className={`flex items-start gap-2 text-lg font-bold ${t.text}`}>
-        <Icon name={t.icon} className="mt-0.5 h-6 w-6 shrink-0" /> <span>{state.headline}</span>
+        <Icon name={t.icon} className="mt-0.5 h-6 w-6 shrink-0" />
+        <span>{state.headline}</span>
       </h2>
       {state.details.length ? (
         <ul className="mt-1 flex flex-col gap-1">
