@@ -90,7 +90,10 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
         <div className="flex flex-wrap items-center gap-3">
           <h1 className="text-2xl font-bold">{member.tag}</h1>
           <PassBadge pass={member.checkPass} />
-          <span className="inline-flex items-center gap-1 rounded-lg border-2 border-ink/30 px-2 py-1 text-sm font-bold" data-testid="member-status">
+          <span
+            className={`inline-flex items-center gap-1 rounded-lg border-2 px-2 py-1 text-sm font-bold ${member.status === "out_of_service" ? "border-bad bg-bad-soft text-bad" : "border-ink/30"}`}
+            data-testid="member-status"
+          >
             <Icon name={member.status === "out_of_service" ? "bad" : "register"} className="h-4 w-4" /> {MEMBER_STATUS_LABELS[member.status]}
           </span>
         </div>
