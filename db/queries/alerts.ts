@@ -4,6 +4,7 @@ import { db, type DbOrTx } from "@/db";
 import {
   alertPreferences, alertReads, alerts, memberships, members, outbox, permitMembers, permits, sites, users, type SiteRole,
 } from "@/db/schema";
+import { failingNow } from "./member-history";
 
 export type AlertRow = typeof alerts.$inferSelect;
 export type NewAlert = Omit<typeof alerts.$inferInsert, "id" | "createdAt"> & { createdAt?: Date };
@@ -170,9 +171,8 @@ export async function findUnalertedOverloads({ siteIds }: { siteIds?: string[] |
     .innerJoin(sites, eq(sites.id, members.siteId))
     .where(
       and(
-        eq(members.checkPass, false),
+        failingNow(),
         sql`${members.latestCheckId} is not null`,
-        inArray(members.status, ["submitted", "loaded", "out_of_service"]),
         siteFilter(members.siteId, siteIds),
         sql`not exists (select 1 from alerts a where a.kind = 'member_overloaded' and a.subject_id = ${members.id} and a.threshold = ${members.latestCheckId}::text)`,
       ),
@@ -195,7 +195,7 @@ export async function listCurrentOverloads({ siteId }: { siteId: string }, tx: D
       extensionMm: members.extensionMm,
     })
     .from(members)
-    .where(and(eq(members.siteId, siteId), eq(members.checkPass, false), inArray(members.status, ["submitted", "loaded", "out_of_service"])))
+    .where(failingNow(siteId))
     .orderBy(sql`${members.utilisation} desc nulls first`, members.tag)
     .limit(50);
 }

@@ -2,6 +2,7 @@ import "server-only";
 import { and, count, eq, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
 import { members, memberships, permits, sites, type SiteRole } from "@/db/schema";
+import { countFailingNow } from "./member-history";
 
 export type SiteValues = {
   name: string;
@@ -56,14 +57,12 @@ export async function getSiteCounts({ siteId }: { siteId: string }, tx: DbOrTx =
     tx.select({ status: members.status, n: count() }).from(members).where(eq(members.siteId, siteId)).groupBy(members.status),
     tx.select({ status: permits.status, n: count() }).from(permits).where(eq(permits.siteId, siteId)).groupBy(permits.status),
   ]);
-  const [failing] = await tx
-    .select({ n: count() })
-    .from(members)
-    .where(and(eq(members.siteId, siteId), eq(members.checkPass, false)));
+  // The same rule as the "overloaded now" list and the overload alerts (struck members excluded).
+  const failing = await countFailingNow({ siteId }, tx);
   return {
     members: Object.fromEntries(memberRows.map((r) => [r.status, r.n])) as Record<string, number>,
     permits: Object.fromEntries(permitRows.map((r) => [r.status, r.n])) as Record<string, number>,
-    failing: failing?.n ?? 0,
+    failing,
   };
 }
 

@@ -127,14 +127,20 @@ export async function recordInspection(args: { user: SessionUser; member: { id: 
         ],
         tx,
       );
-    } else if (member.status === "out_of_service" && previous?.result === "fail") {
-      // Out of service because of a failed inspection: a pass returns it to service (not to any permit).
-      await setMemberStatusForInspection({ memberId, status: "submitted" }, tx);
+    } else if (member.status === "out_of_service") {
+      // Out of service (after a failed inspection, or set by a person reporting damage): a passing
+      // inspection is the only way back to service (lib/register/member-lifecycle.ts), and not to any
+      // permit. A member that fails its capacity check comes back as a draft, since it cannot be submitted.
+      const back = member.checkPass ? "submitted" : "draft";
+      await setMemberStatusForInspection({ memberId, status: back }, tx);
       await recordAudit(
-        { ...audit, action: "member.status_changed", entityType: "member", entityId: memberId, before: { status: member.status }, after: { status: "submitted", reason: "passed re-inspection", inspectionId: inspection.id } },
+        {
+          ...audit, action: "member.status_changed", entityType: "member", entityId: memberId, before: { status: member.status },
+          after: { status: back, reason: previous?.result === "fail" ? "passed re-inspection" : "passed inspection", inspectionId: inspection.id },
+        },
         tx,
       );
-      status = "submitted";
+      status = back;
     }
 
     return {

@@ -3,12 +3,12 @@
 // transaction, so the record always shows what was known when.
 import "server-only";
 // `db` only for updateMember's transaction (the member helper's area; see eslint.config.mjs's temporary exemption).
-import { db, transaction, type DbOrTx, type Tx } from "@/db";
+import { transaction, type DbOrTx, type Tx } from "@/db";
 import { recordAudit, recordAudits } from "@/db/queries/audit";
 import { insertCheck, insertChecks } from "@/db/queries/checks";
 import { getMemberType } from "@/db/queries/member-types";
 import {
-  getMemberForUpdate, getMemberForUser, getMemberIdByTag, getMemberView, insertMember, listMembersOfTypeForCheck,
+  getMemberForUpdate, getMemberIdByTag, getMemberView, insertMember, listMembersOfTypeForCheck,
   setLatestChecks, updateMemberRow, type MemberView,
 } from "@/db/queries/members";
 import { attachPhotos, getPhotosByIds } from "@/db/queries/photos";
@@ -16,12 +16,11 @@ import { getScheme } from "@/db/queries/schemes";
 import type { SessionUser } from "@/db/queries/users";
 import { getZone } from "@/db/queries/zones";
 import type { Member, MemberType } from "@/db/schema";
-import { getSiteAccess } from "@/lib/authz";
-import { fieldErrorsFromZod, ForbiddenError, NotFoundError, ValidationError, type FieldErrors } from "@/lib/errors";
-import { isUuid } from "@/lib/authz";
-import { rolesAllowPure } from "@/lib/permissions";
+import { ConflictError, fieldErrorsFromZod, NotFoundError, ValidationError, type FieldErrors } from "@/lib/errors";
+import { getLastInspectionSummary } from "@/db/queries/member-history";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
-import { CHECK_FIELDS, EDITABLE_STATUSES, memberPatchSchema, memberStateSchema, type MemberCreate } from "@/lib/validations/member";
+import { CHECK_FIELDS, EDITABLE_STATUSES, memberPatchSchema, memberStateSchema, type MemberCreate, type MemberPatch } from "@/lib/validations/member";
+import { statusEditConflict } from "./member-lifecycle";
 import { deriveSlabLoad, type SlabLoadInfo } from "./slab-load";
 import { checkSnapshot, runCheck, type CheckOutcome } from "./run-check";
 
@@ -249,21 +248,6 @@ export async function createMember(args: {
   return args.tx ? work(args.tx) : transaction(work);
 }
 
-/** Loads a member the user may see, or 404 (another organisation, no role on its site, malformed id). */
-export async function loadMemberForUser(user: SessionUser, memberId: string) {
-  if (!isUuid(memberId)) throw new NotFoundError("That member");
-  const member = await getMemberForUser({ memberId, organisationId: user.organisationId });
-  if (!member) throw new NotFoundError("That member");
-  let access;
-  try {
-    access = await getSiteAccess(user, member.siteId);
-  } catch (e) {
-    if (e instanceof NotFoundError) throw new NotFoundError("That member");
-    throw e;
-  }
-  return { member, ...access };
-}
-
 /** Unknown keys in a patch are named one by one rather than as one anonymous error. */
 function patchErrors(issues: { code?: string; keys?: string[]; path: PropertyKey[]; message: string }[]): FieldErrors {
   const out: FieldErrors = {};
@@ -273,20 +257,38 @@ function patchErrors(issues: { code?: string; keys?: string[]; path: PropertyKey
   return { ...fieldErrorsFromZod(issues.filter((i) => i.code !== "unrecognized_keys")), ...out };
 }
 
+/** Parses a PATCH body (the seam answers 422 with these field errors before the use case runs). */
+export function parseMemberPatch(raw: unknown): MemberPatch {
+  const parsed = memberPatchSchema.safeParse(raw);
+  if (!parsed.success) throw new ValidationError(patchErrors(parsed.error.issues));
+  return parsed.data;
+}
+
+/**
+ * Edits a member the route has already found and authorised (see app/api/v1/members/[memberId]).
+ * A status the lifecycle owns cannot be set or left here (409 with the reason; lib/register/member-lifecycle.ts).
+ */
 export async function updateMember(args: {
   user: SessionUser;
-  memberId: string;
-  input: unknown;
+  site: SiteForCheck & { timezone?: string };
+  member: { id: string };
+  input: MemberPatch;
 }): Promise<{ member: MemberView; check: CheckView | null }> {
-  const { user, memberId } = args;
-  const { site, roles } = await loadMemberForUser(user, memberId);
-  if (!rolesAllowPure(roles, "editMember")) throw new ForbiddenError("Your role on this site does not allow editing members.");
-  const parsed = memberPatchSchema.safeParse(args.input);
-  if (!parsed.success) throw new ValidationError(patchErrors(parsed.error.issues));
-  const patch = parsed.data;
+  const { user, site, input: patch } = args;
+  const memberId = args.member.id;
 
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const before = (await getMemberForUpdate({ memberId }, tx))!;
+    if (patch.status !== undefined && patch.status !== before.status) {
+      const conflict = statusEditConflict({
+        tag: before.tag,
+        current: before.status,
+        requested: patch.status,
+        lastInspection: before.status === "out_of_service" ? await getLastInspectionSummary({ memberId }, tx) : null,
+        timeZone: site.timezone,
+      });
+      if (conflict) throw new ConflictError(conflict, { status: conflict });
+    }
     const merged = {
       tag: patch.tag ?? before.tag,
       zoneId: patch.zoneId !== undefined ? patch.zoneId : before.zoneId,

@@ -1,27 +1,23 @@
-import { listChecks } from "@/db/queries/checks";
-import { listPhotos } from "@/db/queries/photos";
-import { apiHandler, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { photoView } from "@/lib/photos";
-import { checkView, loadMemberForUser, updateMember } from "@/lib/register/members";
+import { siteRoute } from "@/lib/api/route";
+import { memberDetail } from "@/lib/register/member-detail";
+import { parseMemberPatch, updateMember } from "@/lib/register/members";
 
-/** The member, its latest check and its photos (thumbnail and display URLs). */
-export const GET = apiHandler<{ memberId: string }>(async (_req, { params }) => {
-  const user = await requireApiUser();
-  const { member } = await loadMemberForUser(user, params.memberId);
-  const [checks, photos] = await Promise.all([listChecks({ memberId: member.id }), listPhotos({ memberId: member.id })]);
-  const latest = checks.find((c) => c.id === member.latestCheckId) ?? checks[0];
-  return {
-    member,
-    check: latest ? checkView(latest) : null,
-    checks: checks.map((c) => ({ ...checkView(c), reason: c.reason, createdByName: c.createdByName })),
-    photos: await Promise.all(photos.map((p) => photoView({ ...p, status: "ready", memberId: member.id, rejectReason: null }))),
-  };
-});
+/**
+ * The member record: the member, its latest check and every check, its photos (thumbnail and
+ * display URLs), its inspections and permits, its state in words and its history as sentences.
+ */
+export const GET = siteRoute({ resource: "member", permission: "viewSite" }, async ({ site, resource: member }) => memberDetail({ member, site }));
 
-/** Edits a member; a change to extension, load, spacing, end conditions, type or scheme re-checks it. */
-export const PATCH = apiHandler<{ memberId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const input = await readJson(req);
-  return updateMember({ user, memberId: params.memberId, input });
-});
+/**
+ * Edits a member; a change to extension, load, spacing, end conditions, type or scheme re-checks it.
+ * A status the lifecycle owns (loaded, struck, out of service) cannot be set or left here: 409 with the reason.
+ */
+export const PATCH = siteRoute(
+  {
+    resource: "member",
+    permission: "editMember",
+    forbidden: "Your role on this site does not allow editing members.",
+    body: parseMemberPatch,
+  },
+  async ({ user, site, resource: member, input }) => updateMember({ user, site, member, input }),
+);

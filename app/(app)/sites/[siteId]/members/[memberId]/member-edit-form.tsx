@@ -47,7 +47,15 @@ export function MemberEditForm({
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [result, setResult] = useState<{ check: CheckSummary; loadN: number } | null>(null);
   const statusError = formState.errors.status?.message;
-  const editable = ["draft", "submitted", "out_of_service"].includes(member.status);
+  // Loaded, struck and out of service belong to the lifecycle: an edit cannot leave them
+  // (lib/register/member-lifecycle.ts). Draft and submitted may be swapped or taken out of service.
+  const editable = ["draft", "submitted"].includes(member.status);
+  const lockedHint =
+    member.status === "out_of_service"
+      ? "Out of service: it returns to service only through a passing inspection, not by editing."
+      : member.status === "struck"
+        ? "Struck under a permit to strike: its status cannot change."
+        : "Loaded under a permit to load: its status follows the permit.";
 
   const onSubmit = handleSubmit(async (values) => {
     setMessage(null);
@@ -80,8 +88,8 @@ export function MemberEditForm({
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="Edit member">
       <MemberFields register={register as never} errors={formState.errors} watch={watch as never} unitSystem={unitSystem} zones={zones} schemes={schemes} types={types} />
-      <Field id="status" label="Status" error={statusError} hint={editable ? undefined : "Loaded and struck follow from permits."}>
-        <select id="status" className={inputClass} disabled={!editable} aria-invalid={!!statusError} aria-describedby={describedBy("status", statusError, !editable)} {...register("status")}>
+      <Field id="status" label="Status" error={statusError} hint={editable ? "Taking a member out of service is always allowed; only a passing inspection returns it to service." : lockedHint}>
+        <select id="status" className={inputClass} disabled={!editable} aria-invalid={!!statusError} aria-describedby={describedBy("status", statusError, true)} {...register("status")}>
           {(editable ? (["draft", "submitted", "out_of_service"] as const) : ([member.status] as const)).map((s) => (
             <option key={s} value={s}>{MEMBER_STATUS_LABELS[s as keyof typeof MEMBER_STATUS_LABELS]}</option>
           ))}

@@ -4,11 +4,8 @@ import { CautionNotice } from "@/components/caution-notice";
 import { Icon } from "@/components/icons";
 import { CapacityChart } from "@/components/register/capacity-chart";
 import { BASIS_LABELS, CheckResult, formatUtilisation, PassBadge } from "@/components/register/check-result";
-import { listAuditForEntity } from "@/db/queries/audit";
-import { listChecks } from "@/db/queries/checks";
 import { getMemberType, listMemberTypes } from "@/db/queries/member-types";
 import { getMemberForUser } from "@/db/queries/members";
-import { listPhotos } from "@/db/queries/photos";
 import { listSchemes } from "@/db/queries/schemes";
 import { listZones } from "@/db/queries/zones";
 import { loadSitePage } from "@/lib/auth/site-page";
@@ -16,30 +13,24 @@ import { isUuid } from "@/lib/authz";
 import { capacityCurve } from "@/lib/engineering";
 import { endConditionInfo } from "@/lib/engineering/effective-length";
 import type { Step } from "@/lib/engineering";
-import { MEMBER_STATUS_LABELS } from "@/lib/labels";
-import { presignGet } from "@/lib/storage";
+import { formatWhen } from "@/lib/alerts/format";
+import { INSPECTION_RESULT_LABELS } from "@/lib/inspections/checklist";
+import { MEMBER_STATUS_LABELS, PERMIT_STATUS_LABELS } from "@/lib/labels";
 import { buildCheckRequest } from "@/lib/register/check-request";
-import { checkView } from "@/lib/register/members";
+import { memberDetail } from "@/lib/register/member-detail";
 import { formatFeetInches, formatForce, formatLength } from "@/lib/units";
 import { MemberEditForm } from "./member-edit-form";
 import { AddPhotos } from "./add-photos";
+import { MemberStateBanner } from "./member-state-banner";
 
 export const metadata: Metadata = { title: "Member" };
 
-const ACTION_LABELS: Record<string, string> = {
-  "member.created": "Logged",
-  "member.edited": "Edited",
-  "member.edited_and_rechecked": "Edited and re-checked",
-  "member.rechecked": "Re-checked after its type changed",
-  "member.photo_added": "Photo added",
+/** Why a check was stored, in words. */
+const CHECK_REASONS: Record<string, string> = {
+  logged: "When logged",
+  edited: "After an edit",
+  imported: "When imported",
 };
-
-function short(v: unknown): string {
-  if (v == null) return "—";
-  if (typeof v === "number") return Number.isInteger(v) ? String(v) : v.toFixed(3);
-  if (typeof v === "object") return JSON.stringify(v);
-  return String(v);
-}
 
 function fmtStep(s: Step) {
   if (typeof s.value === "string") return s.value;
@@ -53,20 +44,17 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
   if (!isUuid(memberId)) notFound();
   const member = await getMemberForUser({ memberId, organisationId: user.organisationId });
   if (!member || member.siteId !== site.id) notFound();
-  const [checks, photoRows, audit, type] = await Promise.all([
-    listChecks({ memberId }),
-    listPhotos({ memberId }),
-    listAuditForEntity({ entityType: "member", entityId: memberId, organisationId: user.organisationId }),
+  // The same view model as GET /api/v1/members/{id}.
+  const [detail, type] = await Promise.all([
+    memberDetail({ member, site }),
     getMemberType({ organisationId: user.organisationId, memberTypeId: member.memberTypeId, includeArchived: true }),
   ]);
-  const photos = await Promise.all(
-    photoRows.map(async (p) => ({ ...p, thumbUrl: p.thumbnailKey ? await presignGet(p.thumbnailKey) : null, displayUrl: p.displayKey ? await presignGet(p.displayKey) : null })),
-  );
+  const { checks, photos, inspections, permits, history, state } = detail;
   const us = site.unitSystem === "us";
   const forceUnit = us ? "kip" : "kN";
   const len = (mm: number | null) => (mm == null ? "—" : us ? formatFeetInches(mm) : formatLength(mm));
-  const latestRow = checks.find((c) => c.id === member.latestCheckId) ?? checks[0];
-  const latest = latestRow ? checkView(latestRow) : null;
+  const latest = detail.check;
+  const when = (d: Date) => formatWhen(d, site.timezone);
 
   // The curve: the same request as the check, over the type's range (or around the member's length).
   let curve: { lengthMm: number; capacityN: number }[] = [];
@@ -102,7 +90,10 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
         <div className="flex flex-wrap items-center gap-3">
           <h1 className="text-2xl font-bold">{member.tag}</h1>
           <PassBadge pass={member.checkPass} />
-          <span className="inline-flex items-center gap-1 rounded-lg border-2 border-ink/30 px-2 py-1 text-sm font-bold" data-testid="member-status">
+          <span
+            className={`inline-flex items-center gap-1 rounded-lg border-2 px-2 py-1 text-sm font-bold ${member.status === "out_of_service" ? "border-bad bg-bad-soft text-bad" : "border-ink/30"}`}
+            data-testid="member-status"
+          >
             <Icon name={member.status === "out_of_service" ? "bad" : "register"} className="h-4 w-4" /> {MEMBER_STATUS_LABELS[member.status]}
           </span>
         </div>
@@ -118,6 +109,8 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
           <Icon name="inspect" className="h-5 w-5" /> {may("inspect") && member.status !== "struck" ? "Record inspection" : "Inspection history"}
         </a>
       </header>
+
+      <MemberStateBanner state={state} inspectHref={may("inspect") && member.status !== "struck" ? `/sites/${site.id}/members/${member.id}/inspect` : null} />
 
       <CautionNotice />
 
@@ -150,7 +143,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
             ["As-built spacing", member.spacingXMm != null && member.spacingYMm != null ? `${len(member.spacingXMm)} × ${len(member.spacingYMm)}` : "—"],
             ["Capacity", member.capacityN == null ? "—" : formatForce(member.capacityN, forceUnit)],
             ["Utilisation", formatUtilisation(member.utilisation)],
-            ["Logged by", `${member.createdByName ?? "—"}, ${member.createdAt.toLocaleString("en-GB", { timeZone: site.timezone })}`],
+            ["Logged by", `${member.createdByName ?? "—"}, ${when(member.createdAt)}`],
             ["Notes", member.notes ?? "—"],
           ].map(([k, v]) => (
             <div key={k} className="flex flex-col border-b border-ink/10 pb-1">
@@ -159,6 +152,57 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
             </div>
           ))}
         </dl>
+      </section>
+
+      <section aria-labelledby="inspections-h" className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4" data-testid="member-inspections">
+        <h2 id="inspections-h" className="mb-2 text-lg font-bold">Inspections ({inspections.length})</h2>
+        {inspections.length === 0 ? (
+          <p className="text-ink-soft">Not inspected yet.</p>
+        ) : (
+          <ol className="flex flex-col gap-2" aria-label="Inspection history">
+            {inspections.map((i) => (
+              <li key={i.id} className="break-words border-b border-ink/10 pb-2" data-testid="member-inspection">
+                <p className="flex flex-wrap items-center gap-2">
+                  <span className={`inline-flex items-center gap-1 rounded-lg px-2 py-0.5 text-sm font-bold ${i.result === "pass" ? "bg-ok-soft text-ok" : "bg-bad-soft text-bad"}`}>
+                    <Icon name={i.result === "pass" ? "ok" : "bad"} className="h-4 w-4" /> {INSPECTION_RESULT_LABELS[i.result]}
+                  </span>
+                  <span>{when(i.inspectedAt)}{i.inspectorName ? ` · ${i.inspectorName}` : ""}</span>
+                </p>
+                {i.failedItems.length ? <p className="text-sm">Failed: {i.failedItems.join("; ")}</p> : null}
+                {i.notes ? <p className="text-sm text-ink-soft">Notes: {i.notes}</p> : null}
+                {i.nextDueAt ? <p className="text-sm text-ink-soft">Next due {when(i.nextDueAt)}</p> : null}
+              </li>
+            ))}
+          </ol>
+        )}
+      </section>
+
+      <section aria-labelledby="permits-h" className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4" data-testid="member-permits">
+        <h2 id="permits-h" className="mb-2 text-lg font-bold">Permits ({permits.length})</h2>
+        {permits.length === 0 ? (
+          <p className="text-ink-soft">Not named on any permit yet.</p>
+        ) : (
+          <ol className="flex flex-col gap-2" aria-label="Permit history">
+            {permits.map((p) => (
+              <li key={p.id} className="break-words border-b border-ink/10 pb-2" data-testid="member-permit">
+                <p>
+                  <a href={`/sites/${site.id}/permits/${p.id}`} className="font-semibold underline">{p.label}</a> · {PERMIT_STATUS_LABELS[p.status]}
+                </p>
+                <p className="text-sm text-ink-soft">
+                  Requested {when(p.requestedAt)}{p.requestedByName ? ` by ${p.requestedByName}` : ""}
+                  {p.issuedAt ? `; issued ${when(p.issuedAt)}${p.approvedByName ? ` by ${p.approvedByName}` : ""}` : ""}
+                  {p.validUntil && p.status === "issued" ? `; valid until ${when(p.validUntil)}` : ""}
+                  {p.closedAt ? `; closed ${when(p.closedAt)}` : ""}.
+                </p>
+                {!p.covers ? (
+                  <p className="text-sm font-semibold text-bad">
+                    Taken off this permit{p.removedAt ? ` on ${when(p.removedAt)}` : ""}{p.removedReason ? `: ${p.removedReason}` : ""}.
+                  </p>
+                ) : null}
+              </li>
+            ))}
+          </ol>
+        )}
       </section>
 
       <section aria-labelledby="photos-h" className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4">
@@ -170,9 +214,9 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
             {photos.map((p) => (
               <li key={p.id}>
                 <a href={p.displayUrl ?? "#"} target="_blank" rel="noreferrer" className="block">
-                  {p.thumbUrl ? <img src={p.thumbUrl} alt={`Photo of ${member.tag}${p.takenAt ? ` taken ${p.takenAt.toLocaleString("en-GB", { timeZone: "UTC" })}` : ""}`} className="aspect-square w-full rounded-lg object-cover" /> : null}
+                  {p.thumbnailUrl ? <img src={p.thumbnailUrl} alt={`Photo of ${member.tag}${p.takenAt ? ` taken ${formatWhen(p.takenAt, "UTC")}` : ""}`} className="aspect-square w-full rounded-lg object-cover" /> : null}
                 </a>
-                <p className="text-xs text-ink-soft">{p.takenAt ? `Taken ${p.takenAt.toLocaleDateString("en-GB", { timeZone: "UTC" })}` : `Uploaded ${p.createdAt.toLocaleDateString("en-GB", { timeZone: site.timezone })}`}</p>
+                <p className="text-xs text-ink-soft">{p.takenAt ? `Taken ${formatWhen(p.takenAt, "UTC")}` : `Uploaded ${when(p.createdAt)}`}</p>
               </li>
             ))}
           </ul>
@@ -201,18 +245,16 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
         <h2 id="checks-h" className="mb-2 text-lg font-bold">Check history ({checks.length})</h2>
         <ol className="flex flex-col gap-2">
           {checks.map((c) => {
-            const v = checkView(c);
-            const result = c.result as { steps?: Step[] };
-            const slab = (c.inputs as { slabLoad?: { steps?: Step[] } }).slabLoad;
-            const steps = [...(slab?.steps ?? []), ...(result.steps ?? [])];
+            const v = c;
+            const steps = c.steps;
             return (
               <li key={c.id}>
-                <details className="rounded-lg border-2 border-ink/15" open={c.id === latestRow?.id && checks.length === 1}>
+                <details className="rounded-lg border-2 border-ink/15" open={c.id === latest?.id && checks.length === 1}>
                   <summary className="flex min-h-touch cursor-pointer flex-wrap items-center gap-2 p-2">
                     <PassBadge pass={c.pass} />
                     <span className="tabular font-semibold">{c.capacityN == null ? "no capacity" : formatForce(c.capacityN, forceUnit)} · {formatUtilisation(c.utilisation)}</span>
                     <span className="text-sm text-ink-soft">
-                      {c.reason} · {c.createdAt.toLocaleString("en-GB", { timeZone: site.timezone })} · {c.createdByName ?? "system"} · {c.method} · engine {c.engineVersion}
+                      {CHECK_REASONS[c.reason] ?? c.reason} · {when(c.createdAt)} · {c.createdByName ?? "system"} · {c.method} · engine {c.engineVersion}
                     </span>
                   </summary>
                   <div className="overflow-x-auto p-2">
@@ -249,25 +291,23 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
       <section aria-labelledby="audit-h" className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4">
         <h2 id="audit-h" className="mb-2 text-lg font-bold">History</h2>
         <ol className="flex flex-col gap-2" aria-label="Audit history">
-          {audit.map((a) => {
-            const before = (a.before ?? {}) as Record<string, unknown>;
-            const after = (a.after ?? {}) as Record<string, unknown>;
-            const keys = a.action === "member.created" ? [] : Object.keys(after).filter((k) => k !== "check");
-            return (
-              <li key={a.id} className="border-b border-ink/10 pb-2 text-sm">
-                <p>
-                  <strong>{ACTION_LABELS[a.action] ?? a.action}</strong> by {a.actorName ?? "the system"} · {a.at.toLocaleString("en-GB", { timeZone: site.timezone })}
-                </p>
-                {keys.length ? (
-                  <ul className="tabular text-ink-soft">
-                    {keys.map((k) => (
-                      <li key={k}>{k}: {short(before[k])} → {short(after[k])}</li>
-                    ))}
-                  </ul>
-                ) : null}
-              </li>
-            );
-          })}
+          {history.map((h) => (
+            <li key={h.id} className="break-words border-b border-ink/10 pb-2 text-sm" data-testid="member-history-item">
+              <p>
+                <strong>{h.summary}</strong>
+              </p>
+              {h.details.length ? (
+                <ul className="text-ink-soft">
+                  {h.details.map((d, i) => (
+                    <li key={i}>{d}</li>
+                  ))}
+                </ul>
+              ) : null}
+              <p className="text-ink-soft">
+                {h.actorName ?? "The system"} · {when(h.at)}
+              </p>
+            </li>
+          ))}
         </ol>
       </section>
     </div>
