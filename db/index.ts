@@ -17,3 +17,8 @@ export type Db = typeof db;
 export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 /** A database handle that may be the pool or an open transaction. */
 export type DbOrTx = Db | Tx;
+
+/** One unit of work: every query given `tx` commits together or not at all. */
+export function transaction<T>(fn: (tx: Tx) => Promise<T>): Promise<T> {
+  return db.transaction(fn);
+}

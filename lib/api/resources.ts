@@ -6,6 +6,7 @@ import { getAlertForUser } from "@/db/queries/alerts";
 import { getMemberForUser } from "@/db/queries/members";
 import { getDelegationForUser, getPermitForUser } from "@/db/queries/permits";
 import { getPhotoForUser } from "@/db/queries/photos";
+import { getScheme } from "@/db/queries/schemes";
 import { getSiteAccessRow } from "@/db/queries/sites";
 import type { SessionUser } from "@/db/queries/users";
 import type { SiteRole } from "@/db/schema";
@@ -77,6 +78,17 @@ export const RESOURCES = {
       if (!delegation) throw new NotFoundError("That issuing scope");
       const access = await accessOr404(user, delegation.siteId, "That issuing scope");
       return { ...access, resource: delegation };
+    },
+  },
+  scheme: {
+    param: "schemeId",
+    async load(user: SessionUser, params: Record<string, string>) {
+      const siteId = idOr404(params, "siteId", "That scheme");
+      const schemeId = idOr404(params, "schemeId", "That scheme");
+      const access = await accessOr404(user, siteId, "That scheme");
+      const scheme = await getScheme({ siteId, schemeId });
+      if (!scheme) throw new NotFoundError("That scheme");
+      return { ...access, resource: scheme };
     },
   },
   alert: {
