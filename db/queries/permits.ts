@@ -84,9 +84,11 @@ export async function listSchemeFacts({ schemeIds }: { schemeIds: (string | null
       category: schemes.category,
       certificateKey: schemes.certificateKey,
       validUntil: schemes.validUntil,
+      // Qualified by hand: with one table in the query drizzle leaves its columns unqualified, and
+      // an unqualified "id" inside the subquery would be the document's own.
       certificate: sql<{ checkerName: string | null; checkCategory: number | null; documentDate: string | null } | null>`(
         select json_build_object('checkerName', d.checker_name, 'checkCategory', d.check_category, 'documentDate', d.document_date)
-        from ${schemeDocuments} d where d.scheme_id = ${schemes.id} and d.kind = 'certificate' and d.object_key = ${schemes.certificateKey}
+        from ${schemeDocuments} d where d.scheme_id = "schemes"."id" and d.kind = 'certificate' and d.object_key = "schemes"."certificate_key"
         order by d.created_at desc limit 1)`,
     })
     .from(schemes)
