@@ -6,6 +6,9 @@ import type { Tx } from "@/db";
 import { countStandingMembers, listIssuedLoadPermitsCovering } from "@/db/queries/permits";
 import { transitionPermit, type Actor } from "./transition";
 
+/** The permit was decided some other way meanwhile (closed, withdrawn, expired): nothing to close. */
+class NoLongerIssued extends Error {}
+
 /**
  * Closes each issued permit to load in `permitIds` that has no member standing any more.
  * `because` is recorded with the close ("every member struck under PTS-0003").
@@ -19,16 +22,15 @@ export async function closeLoadPermitsLeftEmpty({ permitIds, actor, because }: {
         permitId,
         actor,
         from: ["issued"],
-        refuse: () => new Error("skip"),
-        plan: async (locked) => ({
+        refuse: () => new NoLongerIssued(),
+        plan: async () => ({
           values: { status: "closed", closedAt: new Date(), closedBy: actor.userId },
           audit: { action: "permit.closed", before: { status: "issued" }, after: { status: "closed", automatic: true, reason: because } },
-          result: locked.kind === "load",
         }),
       },
       tx,
     ).catch((e: unknown) => {
-      if (e instanceof Error && e.message === "skip") return null;
+      if (e instanceof NoLongerIssued) return null;
       throw e;
     });
     if (r) closed.push(permitId);
@@ -36,8 +38,8 @@ export async function closeLoadPermitsLeftEmpty({ permitIds, actor, because }: {
   return closed;
 }
 
-/** After members were struck: the permits to load that covered them, closed if left empty. */
-export async function closeLoadPermitsOfStruck({ memberIds, actor, because }: { memberIds: string[]; actor: Actor; because: string }, tx: Tx) {
+/** After members were struck or taken out of service: the permits to load that cover them, closed if left empty. */
+export async function closeLoadPermitsCovering({ memberIds, actor, because }: { memberIds: string[]; actor: Actor; because: string }, tx: Tx) {
   const permitIds = await listIssuedLoadPermitsCovering({ memberIds }, tx);
   return closeLoadPermitsLeftEmpty({ permitIds, actor, because }, tx);
 }

@@ -1,6 +1,6 @@
 // Permits to load and to strike. Each use case takes the route's context (the seam has checked
 // who may call it); every state change goes through one transition helper (./transition.ts).
-export { closeLoadPermitsLeftEmpty, closeLoadPermitsOfStruck } from "./auto-close";
+export { closeLoadPermitsLeftEmpty, closeLoadPermitsCovering } from "./auto-close";
 export { issuingAuthority, mayDecide, mayIssue } from "./authority";
 export { closePermit, refusePermit, withdrawPermit } from "./decide";
 export { delegateIssuing, revokeIssuing } from "./delegations";

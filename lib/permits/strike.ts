@@ -7,7 +7,7 @@ import type { SessionUser } from "@/db/queries/users";
 import type { Permit } from "@/db/schema";
 import { ConflictError, ValidationError } from "@/lib/errors";
 import { permitNumberLabel, type ConfirmStruckInput, type StrikeEvidence } from "@/lib/validations/permit";
-import { closeLoadPermitsOfStruck } from "./auto-close";
+import { closeLoadPermitsCovering } from "./auto-close";
 import { wrongState } from "./errors";
 import { transitionPermit } from "./transition";
 
@@ -42,7 +42,7 @@ export async function confirmStruck({ user, resource, input }: Ctx<ConfirmStruck
       const struck = await setMembersStatus({ memberIds: chosen.map((m) => m.id), from: ["draft", "submitted", "loaded", "out_of_service"], to: "struck" }, tx);
       const left = standing.length - struck.length;
       const now = new Date();
-      await closeLoadPermitsOfStruck({ memberIds: struck.map((m) => m.id), actor, because: `every member struck (last under ${label})` }, tx);
+      await closeLoadPermitsCovering({ memberIds: struck.map((m) => m.id), actor, because: `every member struck (last under ${label})` }, tx);
       const done = left === 0;
       return {
         values: done ? { struckConfirmedAt: now, struckConfirmedBy: user.id, status: "closed" as const, closedAt: now, closedBy: user.id } : {},
