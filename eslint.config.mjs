@@ -25,11 +25,6 @@ const config = [
       // Outside the app: tests arrange and inspect rows directly, benchmarks fill the database.
       "tests/**",
       "scripts/**",
-      // TEMPORARY (the lead removes these at merge): areas other helpers are still moving onto
-      // db/queries — the permits feature (permits helper), and updateMember's transaction in
-      // lib/register/members.ts (member helper).
-      "lib/permits/**",
-      "lib/register/members.ts",
     ],
     rules: {
       "no-restricted-imports": [

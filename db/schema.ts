@@ -25,6 +25,7 @@ export const photoStatus = pgEnum("photo_status", ["pending", "ready", "rejected
 export const inspectionResult = pgEnum("inspection_result", ["pass", "fail"]);
 export const permitKind = pgEnum("permit_kind", ["load", "strike"]);
 export const permitStatus = pgEnum("permit_status", ["requested", "issued", "refused", "expired", "withdrawn", "closed"]);
+export const schemeDocumentKind = pgEnum("scheme_document_kind", ["drawing", "certificate"]);
 export const outboxStatus = pgEnum("outbox_status", ["queued", "sending", "sent", "failed"]);
 export const alertDelivery = pgEnum("alert_delivery", ["immediate", "digest", "in_app"]);
 
@@ -331,6 +332,11 @@ export const permits = pgTable(
     requestNote: text("request_note"),
     /** Permit to strike: the evidence that the permanent works can carry themselves. */
     evidence: jsonb("evidence").$type<Record<string, unknown>>(),
+    /** Earlier striking evidence replaced while the request was open, oldest first (never deleted). */
+    evidenceHistory: jsonb("evidence_history")
+      .$type<{ evidence: Record<string, unknown>; replacedAt: string; replacedBy: string; replacedByName: string }[]>()
+      .notNull()
+      .default([]),
     approvedBy: uuid("approved_by").references(() => users.id),
     issuedAt: timestamp("issued_at", { withTimezone: true }),
     validUntil: timestamp("valid_until", { withTimezone: true }),
@@ -358,6 +364,36 @@ export const permitMembers = pgTable(
     removedReason: text("removed_reason"),
   },
   (t) => [primaryKey({ columns: [t.permitId, t.memberId] }), index("permit_members_member").on(t.memberId)],
+);
+
+/**
+ * A scheme's documents: every drawing revision and every design check certificate is kept (the
+ * scheme's drawingKey / certificateKey point at the current one). A certificate names its checker,
+ * the check category and the date (BS 5975:2019 §17.4 design check certificate).
+ */
+export const schemeDocuments = pgTable(
+  "scheme_documents",
+  {
+    id: id(),
+    schemeId: uuid("scheme_id").notNull().references(() => schemes.id, { onDelete: "cascade" }),
+    kind: schemeDocumentKind("kind").notNull(),
+    objectKey: text("object_key").notNull(),
+    contentType: text("content_type").notNull(),
+    sizeBytes: integer("size_bytes").notNull(),
+    /** Drawings: the drawing number and revision letter, and the revision's date. */
+    drawingNumber: text("drawing_number"),
+    revision: text("revision"),
+    /** Certificates: who checked the design, in which design check category, on which date. */
+    checkerName: text("checker_name"),
+    checkCategory: integer("check_category"),
+    /** The revision date of a drawing or the date of the check (a calendar date, YYYY-MM-DD). */
+    documentDate: text("document_date"),
+    /** An image of a signed page: the uploader confirmed it shows the whole signed certificate. */
+    signedImageConfirmed: boolean("signed_image_confirmed").notNull().default(false),
+    uploadedBy: uuid("uploaded_by").references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [index("scheme_documents_scheme").on(t.schemeId, t.kind, t.createdAt)],
 );
 
 /** A coordinator lets a supervisor issue permits for some zones until a date. */
@@ -507,5 +543,6 @@ export type Check = typeof checks.$inferSelect;
 export type Photo = typeof photos.$inferSelect;
 export type Inspection = typeof inspections.$inferSelect;
 export type Permit = typeof permits.$inferSelect;
+export type SchemeDocument = typeof schemeDocuments.$inferSelect;
 export type OutboxMessage = typeof outbox.$inferSelect;
 export type AuditEvent = typeof auditEvents.$inferSelect;

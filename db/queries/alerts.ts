@@ -2,7 +2,7 @@ import "server-only";
 import { and, count, desc, eq, gt, inArray, isNull, lte, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
 import {
-  alertPreferences, alertReads, alerts, memberships, members, outbox, permitMembers, permits, sites, users, type SiteRole,
+  alertPreferences, alertReads, alerts, memberships, members, outbox, sites, users, type SiteRole,
 } from "@/db/schema";
 import { failingNow } from "./member-history";
 
@@ -198,59 +198,6 @@ export async function listCurrentOverloads({ siteId }: { siteId: string }, tx: D
     .where(failingNow(siteId))
     .orderBy(sql`${members.utilisation} desc nulls first`, members.tag)
     .limit(50);
-}
-
-/** Issued permits with a validity end, with their site's warning time. */
-export async function listIssuedPermitsForExpiry({ siteIds }: { siteIds?: string[] | null }, tx: DbOrTx = db) {
-  return tx
-    .select({
-      id: permits.id,
-      siteId: permits.siteId,
-      kind: permits.kind,
-      number: permits.number,
-      validUntil: permits.validUntil,
-      organisationId: sites.organisationId,
-      siteName: sites.name,
-      expiryWarningHours: sites.expiryWarningHours,
-    })
-    .from(permits)
-    .innerJoin(sites, eq(sites.id, permits.siteId))
-    .where(and(eq(permits.status, "issued"), sql`${permits.validUntil} is not null`, siteFilter(permits.siteId, siteIds)));
-}
-
-/** Marks an issued permit expired; returns nothing when another worker already did. */
-export async function expireIssuedPermit({ permitId, now }: { permitId: string; now: Date }, tx: DbOrTx) {
-  const [row] = await tx
-    .update(permits)
-    .set({ status: "expired", updatedAt: now })
-    .where(and(eq(permits.id, permitId), eq(permits.status, "issued")))
-    .returning({ id: permits.id });
-  return row ?? null;
-}
-
-/**
- * Members of an expired permit that were loaded under it and are not covered by another permit to
- * load still in force: they go back to submitted.
- */
-export async function unloadMembersOfExpiredPermit({ permitId, now }: { permitId: string; now: Date }, tx: DbOrTx) {
-  const rows = (await tx.execute(sql`
-    update members m set status = 'submitted', updated_at = ${now.toISOString()}::timestamptz
-    from permit_members pm
-    where pm.permit_id = ${permitId}::uuid and pm.member_id = m.id and pm.removed_at is null and m.status = 'loaded'
-      and not exists (
-        select 1 from permit_members pm2 join permits p2 on p2.id = pm2.permit_id
-        where pm2.member_id = m.id and pm2.removed_at is null and p2.id <> ${permitId}::uuid
-          and p2.kind = 'load' and p2.status = 'issued' and p2.valid_until > ${now.toISOString()}::timestamptz)
-    returning m.id, m.tag`)) as unknown as { id: string; tag: string }[];
-  return rows.map((r) => ({ id: r.id, tag: r.tag }));
-}
-
-export async function countPermitMembers({ permitId }: { permitId: string }, tx: DbOrTx = db) {
-  const [row] = await tx
-    .select({ n: count() })
-    .from(permitMembers)
-    .where(and(eq(permitMembers.permitId, permitId), isNull(permitMembers.removedAt)));
-  return row?.n ?? 0;
 }
 
 /** Outbox messages that keep failing (given up, or 3+ attempts and not sent); alert e-mails about failing mail are left out. */

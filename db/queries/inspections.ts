@@ -2,7 +2,7 @@ import "server-only";
 import { and, desc, eq, inArray, isNull, or, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
 import {
-  inspections, inspectionTriggers, members, permitMembers, permits, photos, sites, users, zones, type Inspection,
+  inspections, inspectionTriggers, members, photos, sites, users, zones, type Inspection,
 } from "@/db/schema";
 
 type MemberStatus = (typeof members.status.enumValues)[number];
@@ -80,28 +80,6 @@ export async function attachInspectionPhotos(
 /** Status change caused by an inspection (out of service on a fail, back to submitted on a pass). */
 export async function setMemberStatusForInspection({ memberId, status }: { memberId: string; status: MemberStatus }, tx: DbOrTx) {
   await tx.update(members).set({ status, updatedAt: new Date() }).where(eq(members.id, memberId));
-}
-
-/**
- * Takes the member out of the scope of every issued permit that still covers it and returns those
- * permits (with their recipients) so they can be told.
- */
-export async function removeMemberFromIssuedPermits(
-  { memberId, reason, now }: { memberId: string; reason: string; now: Date },
-  tx: DbOrTx,
-) {
-  const covering = await tx
-    .select({ id: permits.id, number: permits.number, kind: permits.kind, recipients: permits.recipients, validUntil: permits.validUntil })
-    .from(permitMembers)
-    .innerJoin(permits, eq(permits.id, permitMembers.permitId))
-    .where(and(eq(permitMembers.memberId, memberId), isNull(permitMembers.removedAt), eq(permits.status, "issued")))
-    .for("update", { of: permitMembers });
-  if (covering.length === 0) return [];
-  await tx
-    .update(permitMembers)
-    .set({ removedAt: now, removedReason: reason })
-    .where(and(eq(permitMembers.memberId, memberId), isNull(permitMembers.removedAt), inArray(permitMembers.permitId, covering.map((p) => p.id))));
-  return covering;
 }
 
 /** A member's inspections, newest first, with who did them and their photos. */

@@ -3,7 +3,7 @@ import { and, asc, desc, eq, gt, inArray, isNull, ne, sql, type SQL } from "driz
 import { alias } from "drizzle-orm/pg-core";
 import { db, type DbOrTx } from "@/db";
 import {
-  memberTypes, members, permitDelegations, permitMembers, permits, schemes, sites, users, zones,
+  memberTypes, members, permitDelegations, permitMembers, permits, schemeDocuments, schemes, sites, users, zones,
   type Permit, type SiteRole,
 } from "@/db/schema";
 
@@ -56,6 +56,74 @@ export async function nextPermitNumber({ siteId }: { siteId: string }, tx: DbOrT
     .where(eq(sites.id, siteId))
     .returning({ n: sites.permitCounter });
   return row!.n;
+}
+
+/** Ids of the members in a permit's scope (not removed). */
+export async function listPermitMemberIds({ permitId }: { permitId: string }, tx: DbOrTx = db) {
+  const rows = await tx
+    .select({ id: permitMembers.memberId })
+    .from(permitMembers)
+    .where(and(eq(permitMembers.permitId, permitId), isNull(permitMembers.removedAt)));
+  return rows.map((r) => r.id);
+}
+
+/** The person who requested a permit, for e-mails. */
+export async function getPermitRequester({ userId }: { userId: string }, tx: DbOrTx = db) {
+  const [row] = await tx.select({ id: users.id, email: users.email, name: users.name }).from(users).where(eq(users.id, userId));
+  return row ?? null;
+}
+
+/** What the issue preconditions need of each scheme, with its latest design check certificate. */
+export async function listSchemeFacts({ schemeIds }: { schemeIds: (string | null)[] }, tx: DbOrTx = db) {
+  const ids = [...new Set(schemeIds.filter((s): s is string => !!s))];
+  if (ids.length === 0) return [];
+  return tx
+    .select({
+      id: schemes.id,
+      reference: schemes.reference,
+      category: schemes.category,
+      certificateKey: schemes.certificateKey,
+      validUntil: schemes.validUntil,
+      // Qualified by hand: with one table in the query drizzle leaves its columns unqualified, and
+      // an unqualified "id" inside the subquery would be the document's own.
+      certificate: sql<{ checkerName: string | null; checkCategory: number | null; documentDate: string | null } | null>`(
+        select json_build_object('checkerName', d.checker_name, 'checkCategory', d.check_category, 'documentDate', d.document_date)
+        from ${schemeDocuments} d where d.scheme_id = "schemes"."id" and d.kind = 'certificate' and d.object_key = "schemes"."certificate_key"
+        order by d.created_at desc limit 1)`,
+    })
+    .from(schemes)
+    .where(inArray(schemes.id, ids));
+}
+
+/** How many of `zoneIds` are zones of the site. */
+export async function countSiteZones({ siteId, zoneIds }: { siteId: string; zoneIds: string[] }, tx: DbOrTx = db) {
+  if (zoneIds.length === 0) return 0;
+  const [row] = await tx
+    .select({ n: sql<number>`count(*)::int` })
+    .from(zones)
+    .where(and(eq(zones.siteId, siteId), inArray(zones.id, zoneIds)));
+  return row?.n ?? 0;
+}
+
+/** Issued permits to load that cover any of the members (for closing those left with nothing standing). */
+export async function listIssuedLoadPermitsCovering({ memberIds }: { memberIds: string[] }, tx: DbOrTx = db) {
+  if (memberIds.length === 0) return [] as string[];
+  const rows = await tx
+    .selectDistinct({ id: permits.id })
+    .from(permitMembers)
+    .innerJoin(permits, eq(permits.id, permitMembers.permitId))
+    .where(and(inArray(permitMembers.memberId, memberIds), isNull(permitMembers.removedAt), eq(permits.kind, "load"), eq(permits.status, "issued")));
+  return rows.map((r) => r.id);
+}
+
+/** Members of a permit still standing under it: in scope, not struck and not out of service. */
+export async function countStandingMembers({ permitId }: { permitId: string }, tx: DbOrTx = db) {
+  const [row] = await tx
+    .select({ n: sql<number>`count(*)::int` })
+    .from(permitMembers)
+    .innerJoin(members, eq(members.id, permitMembers.memberId))
+    .where(and(eq(permitMembers.permitId, permitId), isNull(permitMembers.removedAt), sql`${members.status} not in ('struck', 'out_of_service')`));
+  return row?.n ?? 0;
 }
 
 const requester = alias(users, "requester");
@@ -171,6 +239,82 @@ export async function listPermitsAwaitingPdf({ limit, olderThanSeconds }: { limi
     )
     .orderBy(asc(permits.issuedAt))
     .limit(limit);
+}
+
+// ------------------------------------------------- expiry and inspections
+/** Issued permits with a validity end, with their site's warning time. */
+export async function listIssuedPermitsForExpiry({ siteIds }: { siteIds?: string[] | null }, tx: DbOrTx = db) {
+  return tx
+    .select({
+      id: permits.id,
+      siteId: permits.siteId,
+      kind: permits.kind,
+      number: permits.number,
+      validUntil: permits.validUntil,
+      organisationId: sites.organisationId,
+      siteName: sites.name,
+      expiryWarningHours: sites.expiryWarningHours,
+    })
+    .from(permits)
+    .innerJoin(sites, eq(sites.id, permits.siteId))
+    .where(and(eq(permits.status, "issued"), sql`${permits.validUntil} is not null`, siteIds ? (siteIds.length ? inArray(permits.siteId, siteIds) : sql`false`) : undefined));
+}
+
+/** Marks an issued permit expired; returns nothing when another worker already did. */
+export async function expireIssuedPermit({ permitId, now }: { permitId: string; now: Date }, tx: DbOrTx) {
+  const [row] = await tx
+    .update(permits)
+    .set({ status: "expired", updatedAt: now })
+    .where(and(eq(permits.id, permitId), eq(permits.status, "issued")))
+    .returning({ id: permits.id });
+  return row ?? null;
+}
+
+/**
+ * Members of an expired permit that were loaded under it and are not covered by another permit to
+ * load still in force: they go back to submitted.
+ */
+export async function unloadMembersOfExpiredPermit({ permitId, now }: { permitId: string; now: Date }, tx: DbOrTx) {
+  const rows = (await tx.execute(sql`
+    update members m set status = 'submitted', updated_at = ${now.toISOString()}::timestamptz
+    from permit_members pm
+    where pm.permit_id = ${permitId}::uuid and pm.member_id = m.id and pm.removed_at is null and m.status = 'loaded'
+      and not exists (
+        select 1 from permit_members pm2 join permits p2 on p2.id = pm2.permit_id
+        where pm2.member_id = m.id and pm2.removed_at is null and p2.id <> ${permitId}::uuid
+          and p2.kind = 'load' and p2.status = 'issued' and p2.valid_until > ${now.toISOString()}::timestamptz)
+    returning m.id, m.tag`)) as unknown as { id: string; tag: string }[];
+  return rows.map((r) => ({ id: r.id, tag: r.tag }));
+}
+
+export async function countPermitMembers({ permitId }: { permitId: string }, tx: DbOrTx = db) {
+  const [row] = await tx
+    .select({ n: sql<number>`count(*)::int` })
+    .from(permitMembers)
+    .where(and(eq(permitMembers.permitId, permitId), isNull(permitMembers.removedAt)));
+  return row?.n ?? 0;
+}
+
+/**
+ * Takes the member out of the scope of every issued permit that still covers it and returns those
+ * permits (with their recipients) so they can be told.
+ */
+export async function removeMemberFromIssuedPermits(
+  { memberId, reason, now }: { memberId: string; reason: string; now: Date },
+  tx: DbOrTx,
+) {
+  const covering = await tx
+    .select({ id: permits.id, number: permits.number, kind: permits.kind, recipients: permits.recipients, validUntil: permits.validUntil })
+    .from(permitMembers)
+    .innerJoin(permits, eq(permits.id, permitMembers.permitId))
+    .where(and(eq(permitMembers.memberId, memberId), isNull(permitMembers.removedAt), eq(permits.status, "issued")))
+    .for("update", { of: permitMembers });
+  if (covering.length === 0) return [];
+  await tx
+    .update(permitMembers)
+    .set({ removedAt: now, removedReason: reason })
+    .where(and(eq(permitMembers.memberId, memberId), isNull(permitMembers.removedAt), inArray(permitMembers.permitId, covering.map((p) => p.id))));
+  return covering;
 }
 
 // ---------------------------------------------------------------- members

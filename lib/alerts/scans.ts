@@ -3,11 +3,10 @@
 // because of its unique key, and a permit expires once because only one update finds it issued.
 import "server-only";
 import { transaction } from "@/db";
-import {
-  expireIssuedPermit, findFailingEmails, findUnalertedOverloads, listIssuedPermitsForExpiry, unloadMembersOfExpiredPermit,
-} from "@/db/queries/alerts";
+import { findFailingEmails, findUnalertedOverloads } from "@/db/queries/alerts";
 import { recordAudit } from "@/db/queries/audit";
 import { listInspectionRound } from "@/db/queries/inspections";
+import { expireIssuedPermit, listIssuedPermitsForExpiry, unloadMembersOfExpiredPermit } from "@/db/queries/permits";
 import { DUE_SOON_MS, inspectionState } from "@/lib/inspections/due";
 import { formatKn, formatPercent, formatWhen, permitLabel } from "./format";
 import { raiseAlerts, type AlertCandidate } from "./raise";

@@ -1,6 +1,6 @@
 // Invitations: an admin invites someone to a site by e-mail; the link works once, for 7 days.
 import "server-only";
-import { db } from "@/db";
+import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import {
   createInvitation, getInvitationByTokenHash, lockInvitation, markInvitationAccepted, markInvitationRevoked, renewInvitation,
@@ -59,7 +59,7 @@ function queueInvitationEmail(
 }
 
 export async function inviteToSite({ user, site, input }: { user: SessionUser; site: Site; input: z.output<typeof invitationSchema> }) {
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const existing = await getUserByEmail({ email: input.email }, tx);
     if (existing && existing.organisationId === user.organisationId) {
       const held = await listUserRolesOnSite({ siteId: site.id, userId: existing.id }, tx);
@@ -87,7 +87,7 @@ function assertOpen(i: InvitationRow) {
 /** A new link (the previous one stops working) and a fresh 7 days. */
 export async function resendInvitation({ user, site, invitation }: { user: SessionUser; site: Site; invitation: InvitationRow }) {
   assertOpen(invitation);
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const { token, hash } = newToken();
     const renewed = await renewInvitation({ invitationId: invitation.id, tokenHash: hash, expiresAt: expiry() }, tx);
     await queueInvitationEmail({ site, invitation: renewed, token, invitedBy: user }, tx);
@@ -99,7 +99,7 @@ export async function resendInvitation({ user, site, invitation }: { user: Sessi
 export async function revokeInvitation({ user, site, invitation }: { user: SessionUser; site: Site; invitation: InvitationRow }) {
   if (invitation.acceptedAt) throw new ConflictError("This invitation has already been accepted; remove the person from the site instead.");
   if (invitation.revokedAt) return invitation;
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const revoked = await markInvitationRevoked({ invitationId: invitation.id }, tx);
     await recordAudit({ organisationId: user.organisationId, siteId: site.id, actorId: user.id, action: "invitation.revoked", entityType: "invitation", entityId: invitation.id, before: { state: "pending" }, after: { state: "revoked" } }, tx);
     return revoked;
@@ -137,7 +137,7 @@ export async function acceptInvitation({ token, input, now = new Date() }: { tok
   if (!looksLikeToken(token)) throw new NotFoundError("That invitation link");
   const signedIn = await getCurrentUser();
   const passwordHash = input.password ? await hashPassword(input.password) : null;
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const found = await getInvitationByTokenHash({ tokenHash: hashToken(token) }, tx);
     if (!found || !found.siteId) throw new NotFoundError("That invitation link");
     await lockInvitation({ invitationId: found.id }, tx);

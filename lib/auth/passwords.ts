@@ -1,7 +1,7 @@
 // Passwords: a reset link by e-mail (same answer whether the address exists), setting a new one
 // from the link (once, within 1 hour), and changing your own with the current one.
 import "server-only";
-import { db } from "@/db";
+import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import { enqueueEmails } from "@/db/queries/outbox";
 import { createPasswordReset, getPasswordResetForUpdate, markPasswordResetsUsed } from "@/db/queries/password-resets";
@@ -37,7 +37,7 @@ export async function requestPasswordReset({ email, now = new Date() }: { email:
   const user = await getUserByEmail({ email });
   if (!user || user.disabledAt) return RESET_ACCEPTED;
   const { token, hash } = newToken();
-  await db.transaction(async (tx) => {
+  await transaction(async (tx) => {
     await createPasswordReset({ userId: user.id, tokenHash: hash, expiresAt: new Date(now.getTime() + RESET_VALID_MS) }, tx);
     const mail = passwordResetEmail({ name: user.name, url: passwordResetUrl(token) });
     await enqueueEmails([{ kind: "password_reset", toEmail: user.email, toUserId: user.id, ...mail, relatedType: "user", relatedId: user.id }], tx);
@@ -56,7 +56,7 @@ export class ResetGoneError extends AppError {
 export async function resetPassword({ token, password, now = new Date() }: { token: string; password: string; now?: Date }) {
   if (!looksLikeToken(token)) throw new NotFoundError("That password link");
   const passwordHash = await hashPassword(password);
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const reset = await getPasswordResetForUpdate({ tokenHash: hashToken(token) }, tx);
     if (!reset || reset.disabledAt) throw new NotFoundError("That password link");
     if (reset.usedAt) throw new ResetGoneError("reset_used", "This link has already been used. Ask for a new one from the sign-in page.");
@@ -91,7 +91,7 @@ export async function changeOwnPassword({ user, currentPassword, newPassword, no
   if (problem) throw new ValidationError({ newPassword: problem });
   if (newPassword === currentPassword) throw new ValidationError({ newPassword: "Choose a password different from the current one." });
   const newHash = await hashPassword(newPassword);
-  await db.transaction(async (tx) => {
+  await transaction(async (tx) => {
     await setPasswordHash({ userId: user.id, passwordHash: newHash, endSessions: false }, tx);
     await clearSignInFailures({ email: key }, tx);
     await recordAudit({ organisationId: user.organisationId, actorId: user.id, action: "password.changed", entityType: "user", entityId: user.id }, tx);

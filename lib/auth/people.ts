@@ -2,7 +2,7 @@
 // deactivates them across the organisation. Roles are read from the database on every request,
 // and deactivation bumps the session version, so a change holds from the person's next request.
 import "server-only";
-import { db } from "@/db";
+import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import { listActiveSiteAdmins, listUserRolesOnSite, setUserRolesOnSite } from "@/db/queries/memberships";
 import { getOrgUser, listActiveOrgAdmins, setUserDisabled } from "@/db/queries/users";
@@ -24,7 +24,7 @@ const LAST_ADMIN = "You are the last admin: give someone else the admin role fir
 
 export async function setSiteRoles({ user, site, userId, roles }: { user: SessionUser; site: Site; userId: string; roles: SiteRole[] }) {
   const person = await findOrgPerson(user, userId);
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const before = await listUserRolesOnSite({ siteId: site.id, userId: person.id }, tx);
     if (roles.length === 0 && before.length === 0) throw new NotFoundError("That person on this site");
     if (person.id === user.id && before.includes("admin") && !roles.includes("admin") && !person.isOrgAdmin) {
@@ -54,7 +54,7 @@ export async function setSiteRoles({ user, site, userId, roles }: { user: Sessio
 export async function setPersonActive({ user, userId, active }: { user: SessionUser; userId: string; active: boolean }) {
   const person = await findOrgPerson(user, userId);
   if (!user.isOrgAdmin) throw new ForbiddenError("Deactivating people is for organisation admins.");
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     if (!active && person.isOrgAdmin) {
       const others = (await listActiveOrgAdmins({ organisationId: user.organisationId }, tx)).filter((a) => a.id !== person.id);
       if (others.length === 0) throw new ConflictError(person.id === user.id ? LAST_ADMIN : "This is the organisation's last admin.");

@@ -1,6 +1,6 @@
 // First run: an empty installation gets its organisation and first admin, once.
 import "server-only";
-import { db } from "@/db";
+import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import { countOrganisations, createOrganisation, createUser, getUserByEmail, lockSetup } from "@/db/queries/users";
 import { ConflictError, NotFoundError, ValidationError } from "@/lib/errors";
@@ -35,7 +35,7 @@ export async function createOrganisationWithAdmin(
     if (problem) throw new ValidationError({ password: problem });
   }
   const passwordHash = input.passwordHash ?? (await hashPassword(input.password!));
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     await lockSetup(tx);
     if (!headless && (await countOrganisations(tx)) > 0) throw new NotFoundError("The setup page");
     if (await getUserByEmail({ email: input.email }, tx))

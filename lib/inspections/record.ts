@@ -7,12 +7,14 @@ import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import {
   attachInspectionPhotos, findPhotosForInspection, getLatestInspection, insertInspection, lockMemberForInspection,
-  removeMemberFromIssuedPermits, setMemberStatusForInspection,
+  setMemberStatusForInspection,
 } from "@/db/queries/inspections";
+import { removeMemberFromIssuedPermits } from "@/db/queries/permits";
 import { enqueueEmails } from "@/db/queries/outbox";
 import { renderPermitMemberRemoved } from "@/emails/alert-permit-member-removed";
 import { formatWhen, permitLabel } from "@/lib/alerts/format";
 import { raiseAlerts } from "@/lib/alerts/raise";
+import { closeLoadPermitsLeftEmpty } from "@/lib/permits/auto-close";
 import type { SessionUser } from "@/lib/auth";
 import { env } from "@/lib/env";
 import { ConflictError, NotFoundError, ValidationError } from "@/lib/errors";
@@ -107,6 +109,15 @@ export async function recordInspection(args: { user: SessionUser; member: { id: 
           tx,
         );
       }
+      // A permit to load left with no member standing closes itself (audited, same transaction).
+      await closeLoadPermitsLeftEmpty(
+        {
+          permitIds: permits.filter((p) => p.kind === "load").map((p) => p.id),
+          actor: { organisationId: user.organisationId, userId: user.id },
+          because: `no member left standing after ${member.tag} failed its inspection`,
+        },
+        tx,
+      );
       await raiseAlerts(
         [
           {

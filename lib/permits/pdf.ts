@@ -1,12 +1,14 @@
-// The permit PDF: render from the database, store in S3, then release the e-mails waiting for it.
+// The permit PDF: rendered from the permit's detail record, stored in S3, then the e-mails
+// waiting for it are released.
 import "server-only";
-import { db } from "@/db";
+import { transaction } from "@/db";
 import { releaseHeldEmails } from "@/db/queries/outbox";
-import { getPermitForUpdate, getPermitView, listPermitMembers, listPermitsAwaitingPdf, updatePermit } from "@/db/queries/permits";
+import { getPermitForUpdate, listPermitsAwaitingPdf, updatePermit } from "@/db/queries/permits";
 import { PERMIT_STATUS_LABELS } from "@/lib/labels";
 import { renderPermitPdf, type PermitPdfData } from "@/lib/pdf/permit";
 import { putObject } from "@/lib/storage";
-import { PERMIT_KIND_LABELS, permitNumberLabel } from "@/lib/validations/permit";
+import { PERMIT_KIND_LABELS } from "@/lib/validations/permit";
+import { permitRecord, type PermitRecord } from "./detail";
 import { fmtDateTime, fmtForce, fmtLength, fmtUtilisation, type UnitSystem } from "./format";
 import { evidenceFinding } from "./preconditions";
 import { permitUrl } from "./urls";
@@ -18,20 +20,17 @@ export const permitPdfKey = (siteId: string, permitId: string) => `permits/${sit
 /** Letter for sites working in US units, A4 otherwise. */
 export const defaultPaper = (units: UnitSystem): PaperSize => (units === "us" ? "LETTER" : "A4");
 
-export async function buildPermitPdfData(permitId: string): Promise<{ data: PermitPdfData; siteId: string; units: UnitSystem } | null> {
-  const v = await getPermitView({ permitId });
-  if (!v || !v.permit.issuedAt || v.permit.number == null) return null;
-  const p = v.permit;
-  const units = v.siteUnitSystem as UnitSystem;
-  const tz = v.siteTimezone;
-  const scope = await listPermitMembers({ permitId });
+/** The PDF's content from the permit's record; null until the permit has been issued. */
+export function permitPdfData(r: PermitRecord): PermitPdfData | null {
+  const { permit: p, view: v, units, timeZone: tz, scope } = r;
+  if (!p.issuedAt || p.number == null) return null;
   const zones = [...new Set(scope.map((m) => m.zoneName).filter((z): z is string => !!z))];
   const schemeRefs = [...new Set(scope.map((m) => m.schemeReference).filter((s): s is string => !!s))];
   const schemes = schemeRefs.map((ref) =>
     ref === v.schemeReference ? `${ref} — ${v.schemeTitle} (design check category ${v.schemeCategory})` : ref,
   );
-  const data: PermitPdfData = {
-    numberLabel: permitNumberLabel(p.kind, p.number)!,
+  return {
+    numberLabel: r.numberLabel!,
     kindLabel: PERMIT_KIND_LABELS[p.kind],
     kind: p.kind,
     statusLabel: PERMIT_STATUS_LABELS[p.status].toUpperCase(),
@@ -60,33 +59,35 @@ export async function buildPermitPdfData(permitId: string): Promise<{ data: Perm
     permitUrl: permitUrl(p.siteId, p.id),
     generatedAt: fmtDateTime(new Date(), tz, units),
   };
-  return { data, siteId: p.siteId, units };
 }
 
 /** Renders a permit's PDF in the given paper size without storing it (e.g. `?size=letter`). */
-export async function renderPermitPdfNow(permitId: string, size?: PaperSize): Promise<Buffer | null> {
-  const built = await buildPermitPdfData(permitId);
-  if (!built) return null;
-  return renderPermitPdf(built.data, size ?? defaultPaper(built.units));
+export async function renderPermitPdfNow(record: PermitRecord, size?: PaperSize): Promise<Buffer | null> {
+  const data = permitPdfData(record);
+  if (!data) return null;
+  return renderPermitPdf(data, size ?? defaultPaper(record.units));
 }
 
 /**
  * Renders and stores the PDF of an issued permit, sets its key and releases the e-mails held for
  * it with the PDF attached. Safe to run twice at once: the permit row lock makes one of them the
  * one that records the key and releases the mail. Returns the object key (null: not issued).
+ * Pass the record when the caller already has it (issuing builds it once).
  */
-export async function renderAndStorePermitPdf(permitId: string): Promise<string | null> {
-  const built = await buildPermitPdfData(permitId);
-  if (!built) return null;
-  const pdf = await renderPermitPdf(built.data, defaultPaper(built.units));
-  const key = permitPdfKey(built.siteId, permitId);
+export async function renderAndStorePermitPdf(permitId: string, given?: PermitRecord): Promise<string | null> {
+  const record = given ?? (await permitRecord(permitId));
+  if (!record) return null;
+  const data = permitPdfData(record);
+  if (!data) return null;
+  const pdf = await renderPermitPdf(data, defaultPaper(record.units));
+  const key = permitPdfKey(record.permit.siteId, permitId);
   await putObject(key, pdf, "application/pdf");
-  await db.transaction(async (tx) => {
+  await transaction(async (tx) => {
     const locked = await getPermitForUpdate({ permitId }, tx);
     if (!locked) return;
     if (!locked.pdfKey) await updatePermit({ permitId, values: { pdfKey: key } }, tx);
     await releaseHeldEmails(
-      { waitFor: `pdf:${permitId}`, attachments: [{ key, filename: `${built.data.numberLabel}.pdf`, contentType: "application/pdf" }] },
+      { waitFor: `pdf:${permitId}`, attachments: [{ key, filename: `${data.numberLabel}.pdf`, contentType: "application/pdf" }] },
       tx,
     );
   });

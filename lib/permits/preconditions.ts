@@ -8,7 +8,15 @@ export type FindingKey = "state" | "check" | "photos" | "inspection" | "scheme";
 export type Finding = { key: FindingKey | "scope" | "certificate" | "scheme-validity" | "evidence"; ok: boolean; text: string };
 export type MemberFindings = { id: string; tag: string; ready: boolean; findings: Finding[] };
 
-export type SchemeFacts = { id: string; reference: string; category: number; certificateKey: string | null; validUntil: Date | null };
+export type SchemeFacts = {
+  id: string;
+  reference: string;
+  category: number;
+  certificateKey: string | null;
+  validUntil: Date | null;
+  /** The current certificate's record (checker, category, date); null for a file recorded before certificates kept them. */
+  certificate?: { checkerName: string | null; checkCategory: number | null; documentDate: string | null } | null;
+};
 
 export type Evaluation = {
   canIssue: boolean;
@@ -116,8 +124,21 @@ export function evaluatePermit(input: EvaluateInput): Evaluation {
     for (const id of used) {
       const s = schemesById.get(id);
       if (!s) continue;
+      const cert = s.certificate;
       if (s.category >= 1 && !s.certificateKey)
         permit.push({ key: "certificate", ok: false, text: `Scheme ${s.reference} (design check category ${s.category}) has no design check certificate` });
+      else if (s.category >= 1 && cert?.checkCategory != null && cert.checkCategory < s.category)
+        permit.push({
+          key: "certificate",
+          ok: false,
+          text: `Scheme ${s.reference} is design check category ${s.category}, but its check certificate (${cert.checkerName ?? "checker not named"}) is for category ${cert.checkCategory}; upload a category ${s.category} check certificate`,
+        });
+      else if (s.category >= 1 && cert)
+        permit.push({
+          key: "certificate",
+          ok: true,
+          text: `Scheme ${s.reference} (category ${s.category}) has its design check certificate: checked by ${cert.checkerName} on ${cert.documentDate ? fmtDate(cert.documentDate, input.timeZone, input.units) : "—"}`,
+        });
       else
         permit.push({
           key: "certificate",

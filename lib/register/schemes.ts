@@ -5,25 +5,20 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
 import sharp from "sharp";
+import type { z } from "zod";
 import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
-import { getScheme, getSchemeByReference, insertScheme, updateScheme as updateSchemeRow, type SchemeView } from "@/db/queries/schemes";
+import { getSchemeByReference, insertScheme, updateScheme as updateSchemeRow, type SchemeView } from "@/db/queries/schemes";
+import { insertSchemeDocument, listSchemeDocuments } from "@/db/queries/scheme-documents";
 import type { SessionUser } from "@/db/queries/users";
+import type { ResourceOf, Site } from "@/lib/api/resources";
 import { getZoneByName, insertZone, updateZone as updateZoneRow, type ZoneView } from "@/db/queries/zones";
-import { assertSitePermission, isUuid } from "@/lib/authz";
-import { fieldErrorsFromZod, NotFoundError, ValidationError } from "@/lib/errors";
+import { fieldErrorsFromZod, ValidationError } from "@/lib/errors";
 import { deleteObject, getObject, headObject, presignGet, presignPut } from "@/lib/storage";
-import { schemeFileCompleteSchema, schemeFilePresignSchema, type SchemeParsed } from "@/lib/validations/scheme";
-import type { z } from "zod";
+import { schemeFilePresignSchema, type SchemeFileComplete, type SchemeParsed } from "@/lib/validations/scheme";
 import type { zoneSchema } from "@/lib/validations/zone";
 
 type ZoneParsed = z.output<typeof zoneSchema>;
-
-function parse<T>(schema: { safeParse: (v: unknown) => { success: true; data: T } | { success: false; error: { issues: { path: PropertyKey[]; message: string }[] } } }, input: unknown): T {
-  const r = schema.safeParse(input);
-  if (!r.success) throw new ValidationError(fieldErrorsFromZod(r.error.issues));
-  return r.data;
-}
 
 type OnSite = { id: string; organisationId: string };
 
@@ -58,16 +53,6 @@ export async function createScheme({ user, site, input: v }: { user: SessionUser
   });
 }
 
-// Scheme files (presign/complete below) are the permits helper's to move onto the seam; until then
-// they find the scheme and check the role here.
-async function loadScheme(user: SessionUser, siteId: string, schemeId: string) {
-  const { site } = await assertSitePermission(user, siteId, "manageSchemes");
-  if (!isUuid(schemeId)) throw new NotFoundError("That scheme");
-  const scheme = await getScheme({ siteId: site.id, schemeId });
-  if (!scheme) throw new NotFoundError("That scheme");
-  return { site, scheme };
-}
-
 export async function editScheme({ user, site, scheme: before, input: v }: { user: SessionUser; site: OnSite; scheme: SchemeView; input: SchemeParsed }) {
   const schemeId = before.id;
   return transaction(async (tx) => {
@@ -81,17 +66,28 @@ export async function editScheme({ user, site, scheme: before, input: v }: { use
 }
 
 /** Starts the upload of a drawing or check certificate: a presigned PUT the browser sends the file to. */
-export async function presignSchemeFile({ user, siteId, schemeId, input }: { user: SessionUser; siteId: string; schemeId: string; input: unknown }) {
-  const { site } = await loadScheme(user, siteId, schemeId);
-  const v = parse(schemeFilePresignSchema, input);
-  const key = `sites/${site.id}/schemes/${schemeId}/${v.kind}-${randomUUID()}`;
+export async function presignSchemeFile({ site, resource: scheme, input: v }: { site: Site; resource: ResourceOf<"scheme">; input: z.output<typeof schemeFilePresignSchema> }) {
+  const key = `sites/${site.id}/schemes/${scheme.id}/${v.kind}-${randomUUID()}`;
   return { key, uploadUrl: await presignPut(key, v.contentType), headers: { "content-type": v.contentType } };
 }
 
-/** Checks the uploaded file is really a PDF or an image, then records it on the scheme. */
-export async function completeSchemeFile({ user, siteId, schemeId, input }: { user: SessionUser; siteId: string; schemeId: string; input: unknown }) {
-  const { site, scheme } = await loadScheme(user, siteId, schemeId);
-  const v = parse(schemeFileCompleteSchema, input);
+/** The next revision letter of a drawing (A, B, … Z, AA…), or null when the last one is not a plain letter. */
+function nextRevision(last: string | null | undefined): string | null {
+  if (!last) return "A";
+  if (!/^[A-Z]{1,2}$/.test(last)) return null;
+  if (last === "Z") return "AA";
+  const head = last.slice(0, -1);
+  const tail = last.slice(-1);
+  return tail === "Z" ? null : `${head}${String.fromCharCode(tail.charCodeAt(0) + 1)}`;
+}
+
+/**
+ * Checks the uploaded file is really a PDF or an image, and that a certificate names its checker,
+ * category and date (an image only as a confirmed picture of the signed page); then keeps it as a
+ * new document of the scheme (drawings keep every revision) and makes it the scheme's current one.
+ */
+export async function completeSchemeFile({ user, site, resource: scheme, input: v }: { user: SessionUser; site: Site; resource: ResourceOf<"scheme">; input: SchemeFileComplete }) {
+  const schemeId = scheme.id;
   if (!v.key.startsWith(`sites/${site.id}/schemes/${schemeId}/${v.kind}-`)) throw new ValidationError({ key: "That upload does not belong to this scheme; start the upload again." });
   const head = await headObject(v.key);
   if (!head) throw new ValidationError({ file: "The file has not arrived in the store; upload it again." });
@@ -102,17 +98,70 @@ export async function completeSchemeFile({ user, siteId, schemeId, input }: { us
     const meta = await sharp(bytes).metadata().catch(() => null);
     if (meta?.format && ["jpeg", "png", "webp"].includes(meta.format)) contentType = `image/${meta.format}`;
   }
-  if (!contentType) {
-    await deleteObject(v.key).catch(() => undefined);
-    throw new ValidationError({ file: "The file is neither a PDF nor a JPEG/PNG/WebP image (its contents were checked, not its name); upload the drawing as a PDF." });
+  const fields: Record<string, string> = {};
+  if (!contentType)
+    fields.file = "The file is neither a PDF nor a JPEG/PNG/WebP image (its contents were checked, not its name); upload the drawing as a PDF.";
+  const today = new Date().toISOString().slice(0, 10);
+  const documents = await listSchemeDocuments({ schemeId, kind: v.kind });
+  let revision: string | null = null;
+  if (v.kind === "certificate") {
+    if (!v.checkerName) fields.checkerName = "Name the person who checked the design (as on the certificate).";
+    if (v.checkCategory == null) fields.checkCategory = "Choose the design check category the certificate is for (0 to 3).";
+    else if (v.checkCategory < scheme.category)
+      fields.checkCategory = `This scheme is design check category ${scheme.category}; a category ${v.checkCategory} check does not cover it.`;
+    if (!v.documentDate) fields.documentDate = "Give the date of the check, as on the certificate.";
+    else if (v.documentDate > today) fields.documentDate = "The date of the check cannot be in the future.";
+    if (contentType?.startsWith("image/") && v.signedImageConfirmed !== true)
+      fields.signedImageConfirmed = "An image is accepted only as a photo or scan of the signed certificate: confirm it shows the whole signed page, or upload the PDF.";
+  } else {
+    const sameDrawing = documents.filter((d) => (d.drawingNumber ?? null) === (v.drawingNumber ?? null));
+    if (v.revision) {
+      if (sameDrawing.some((d) => d.revision === v.revision))
+        fields.revision = `Revision ${v.revision}${v.drawingNumber ? ` of drawing ${v.drawingNumber}` : ""} is already recorded; give the new revision's letter.`;
+      revision = v.revision;
+    } else {
+      revision = nextRevision(sameDrawing[0]?.revision);
+      if (!revision) fields.revision = `Give the revision of this drawing (the last one recorded is ${sameDrawing[0]?.revision}).`;
+    }
+    if (v.documentDate && v.documentDate > today) fields.documentDate = "A drawing revision's date cannot be in the future.";
+  }
+  if (Object.keys(fields).length) {
+    if (!contentType) await deleteObject(v.key).catch(() => undefined);
+    throw new ValidationError(fields);
   }
   const field = v.kind === "drawing" ? "drawingKey" : "certificateKey";
   return transaction(async (tx) => {
-    const updated = (await updateSchemeRow({ siteId: site.id, schemeId, values: { [field]: v.key } }, tx))!;
-    await recordAudit(
-      { organisationId: site.organisationId, siteId: site.id, actorId: user.id, action: `scheme.${v.kind}_uploaded`, entityType: "scheme", entityId: schemeId, before: { [field]: scheme[field] }, after: { [field]: v.key, contentType, sizeBytes: head.size } },
+    const document = await insertSchemeDocument(
+      {
+        schemeId,
+        kind: v.kind,
+        objectKey: v.key,
+        contentType: contentType!,
+        sizeBytes: head.size,
+        drawingNumber: v.kind === "drawing" ? (v.drawingNumber ?? null) : null,
+        revision,
+        checkerName: v.kind === "certificate" ? v.checkerName! : null,
+        checkCategory: v.kind === "certificate" ? v.checkCategory! : null,
+        documentDate: v.documentDate ?? today,
+        signedImageConfirmed: v.kind === "certificate" && contentType!.startsWith("image/") && v.signedImageConfirmed === true,
+        uploadedBy: user.id,
+      },
       tx,
     );
-    return { scheme: updated, url: await presignGet(v.key) };
+    const updated = (await updateSchemeRow({ siteId: site.id, schemeId, values: { [field]: v.key } }, tx))!;
+    await recordAudit(
+      {
+        organisationId: site.organisationId,
+        siteId: site.id,
+        actorId: user.id,
+        action: `scheme.${v.kind}_uploaded`,
+        entityType: "scheme",
+        entityId: schemeId,
+        before: { [field]: scheme[field] },
+        after: { [field]: v.key, contentType, sizeBytes: head.size, documentId: document.id, drawingNumber: document.drawingNumber, revision, checkerName: document.checkerName, checkCategory: document.checkCategory, documentDate: document.documentDate },
+      },
+      tx,
+    );
+    return { scheme: updated, document, url: await presignGet(v.key) };
   });
 }

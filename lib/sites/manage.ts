@@ -1,6 +1,6 @@
 // Sites: an organisation admin adds them, changes their policies and archives them.
 import "server-only";
-import { db } from "@/db";
+import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import { createSite, siteCodeTaken, updateSite, type SiteValues } from "@/db/queries/sites";
 import type { SessionUser } from "@/lib/auth";
@@ -36,7 +36,7 @@ export async function addSite({ user, input }: { user: SessionUser; input: z.out
     expiryWarningHours: input.permitWarningHours,
     timezone: input.timezone,
   };
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     if (await siteCodeTaken({ organisationId: user.organisationId, code: values.code }, tx)) throw codeTaken();
     const site = await createSite({ organisationId: user.organisationId, values }, tx);
     await recordAudit({ organisationId: user.organisationId, siteId: site.id, actorId: user.id, action: "site.created", entityType: "site", entityId: site.id, after: values }, tx);
@@ -56,7 +56,7 @@ export async function changeSite({ user, site, input }: { user: SessionUser; sit
   if (input.permitWarningHours !== undefined) values.expiryWarningHours = input.permitWarningHours;
   if (input.timezone !== undefined) values.timezone = input.timezone;
   if (input.archived !== undefined) values.archivedAt = input.archived ? (site.archivedAt ?? new Date()) : null;
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     if (values.code && (await siteCodeTaken({ organisationId: user.organisationId, code: values.code, exceptSiteId: site.id }, tx))) throw codeTaken();
     const updated = await updateSite({ siteId: site.id, values }, tx);
     const before = Object.fromEntries(Object.keys(values).map((k) => [k, (site as Record<string, unknown>)[k]]));

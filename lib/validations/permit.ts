@@ -117,3 +117,20 @@ export function permitNumberLabel(kind: "load" | "strike", number: number | null
 }
 
 export const PERMIT_KIND_LABELS = { load: "Permit to load", strike: "Permit to strike" } as const;
+
+/** Confirming striking: every member still standing (no body), the chosen members, or one zone's. */
+export const confirmStruckSchema = z
+  .object({
+    memberIds: z
+      .array(z.string().uuid({ error: "That member is not in this permit." }), { error: "Choose the members that have been struck." })
+      .min(1, { error: "Choose at least one member that has been struck." })
+      .max(MAX_MEMBERS_PER_PERMIT)
+      .optional(),
+    zoneId: z.string().uuid({ error: "Choose a zone of this permit." }).optional(),
+  })
+  .refine((v) => !(v.memberIds && v.zoneId), { path: ["zoneId"], error: "Confirm by members or by zone, not both at once." });
+export type ConfirmStruckInput = z.output<typeof confirmStruckSchema>;
+
+export const amendEvidenceSchema = z.object({
+  evidence: strikeEvidenceSchema,
+});

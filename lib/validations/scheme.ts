@@ -80,7 +80,30 @@ export const schemeFilePresignSchema = z.object({
     .max(MAX_SCHEME_FILE_BYTES, "The file is larger than 25 MB; export the drawing at a lower resolution."),
 });
 
+const calendarDate = (label: string) =>
+  z
+    .string({ error: () => `${label} must be a date, e.g. 2025-06-30.` })
+    .regex(/^\d{4}-\d{2}-\d{2}$/, `${label} must be a date, e.g. 2025-06-30.`)
+    .refine((v) => Number.isFinite(Date.parse(`${v}T00:00:00Z`)) && new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), `${label} is not a real date.`);
+
+/**
+ * After the PUT: which file it was, and what the document says. A certificate needs its checker,
+ * check category and date (checked on the server together with the file's contents, so every
+ * problem is reported at once); a drawing may give its number, revision and date.
+ */
 export const schemeFileCompleteSchema = z.object({
   kind: z.enum(SCHEME_FILE_KINDS, { error: () => "Say which file this is: drawing or certificate." }),
   key: z.string({ error: () => "Give the key returned when the upload started." }).min(1),
+  drawingNumber: z.string().trim().min(1, "Give the drawing number, or leave it out.").max(60, "A drawing number has at most 60 characters.").optional(),
+  revision: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]{1,2}[0-9]{0,2}$/, "A revision is a letter, optionally with a number (A, B, P1, C02).")
+    .optional(),
+  documentDate: calendarDate("The date").optional(),
+  checkerName: z.string().trim().max(120, "The checker's name has at most 120 characters.").optional(),
+  checkCategory: z.number({ error: () => "Choose the check category (0 to 3)." }).int("The check category is 0 to 3.").min(0, "The check category is 0 to 3.").max(3, "The check category is 0 to 3 (BS 5975).").optional(),
+  signedImageConfirmed: z.boolean({ error: () => "Confirm (true) that the image shows the whole signed certificate." }).optional(),
 });
+export type SchemeFileComplete = z.output<typeof schemeFileCompleteSchema>;

@@ -10,7 +10,9 @@ import { db, sql } from "@/db";
 import { getSessionUser } from "@/db/queries/users";
 import { checks, inspections, memberTypes, members, photos, schemes, sites, users, zones } from "@/db/schema";
 import { issuePermit, requestPermit } from "@/lib/permits";
+import { RESOURCES } from "@/lib/api/resources";
 import { runCheck } from "@/lib/register/run-check";
+import { permitRequestSchema } from "@/lib/validations/permit";
 
 export interface BenchRow {
   name: string;
@@ -63,14 +65,17 @@ export async function benchPermitIssue(): Promise<BenchRow[]> {
   const ids = await readyMembers(d, ISSUES * MEMBERS_PER_PERMIT, run);
   const permitIds: string[] = [];
   for (let i = 0; i < ISSUES; i++) {
-    const p = await requestPermit({ user: d.engineer, siteId: d.site.id, body: { kind: "load", scope: "members", memberIds: ids.slice(i * MEMBERS_PER_PERMIT, (i + 1) * MEMBERS_PER_PERMIT) } });
+    const input = permitRequestSchema.parse({ kind: "load", scope: "members", memberIds: ids.slice(i * MEMBERS_PER_PERMIT, (i + 1) * MEMBERS_PER_PERMIT) });
+    const p = await requestPermit({ user: d.engineer, site: d.site, input });
     permitIds.push(p.id);
   }
   // One warm-up issue (fonts load, PDF layout code compiles), not counted.
   const times: number[] = [];
   for (const [i, id] of permitIds.entries()) {
     const t = performance.now();
-    const r = await issuePermit({ user: d.coordinator, permitId: id, body: {} });
+    // The context the route's seam would hand over: the coordinator, the permit, no body.
+    const loaded = await RESOURCES.permit.load(d.coordinator, { permitId: id });
+    const r = await issuePermit({ req: new Request("http://bench.invalid/"), user: d.coordinator, ...loaded, input: {} });
     const ms = performance.now() - t;
     if (!r.pdfReady) throw new Error(`permit ${id} was issued without its PDF`);
     if (i > 0) times.push(ms);

@@ -1,8 +1,5 @@
-import { apiHandler } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
+import { siteRoute } from "@/lib/api/route";
 import { permitDetail, permitJson } from "@/lib/permits";
 
-export const GET = apiHandler<{ permitId: string }>(async (_req, { params }) => {
-  const user = await requireApiUser();
-  return { permit: permitJson(await permitDetail(user, params.permitId)) };
-});
+/** The permit with its members, preconditions, e-mail delivery and what the signed-in person may do. */
+export const GET = siteRoute({ resource: "permit", permission: "viewSite" }, async (ctx) => ({ permit: permitJson(await permitDetail(ctx)) }));

@@ -4,15 +4,17 @@ import { notFound } from "next/navigation";
 import { CautionNotice } from "@/components/caution-notice";
 import { Icon } from "@/components/icons";
 import { buttonClass } from "@/components/ui/button";
+import { RESOURCES } from "@/lib/api/resources";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { NotFoundError } from "@/lib/errors";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
 import { permitDetail, type PermitDetail } from "@/lib/permits";
 import { fmtDateTime, fmtForce, fmtLength, fmtUtilisation } from "@/lib/permits/format";
+import { evidenceFinding as describeEvidence } from "@/lib/permits/preconditions";
 import type { Finding } from "@/lib/permits/preconditions";
 import { MAX_VALIDITY_DAYS, PERMIT_KIND_LABELS } from "@/lib/validations/permit";
 import { PermitStatus } from "../permit-status";
-import { IssuePanel, LiveRefresh, PostAction, ReasonAction } from "./permit-actions";
+import { AmendEvidence, IssuePanel, LiveRefresh, PostAction, ReasonAction, StrikeMembers } from "./permit-actions";
 
 export const metadata: Metadata = { title: "Permit" };
 
@@ -229,7 +231,8 @@ export default async function PermitPage({ params }: { params: Promise<{ siteId:
   const { user, site } = await loadSitePage(siteId);
   let d: PermitDetail;
   try {
-    d = await permitDetail(user, permitId);
+    // The same loader the API's seam uses: 404 for a malformed id or another organisation's permit.
+    d = await permitDetail({ user, ...(await RESOURCES.permit.load(user, { permitId })) });
   } catch (e) {
     if (e instanceof NotFoundError) notFound();
     throw e;
@@ -301,6 +304,25 @@ export default async function PermitPage({ params }: { params: Promise<{ siteId:
           <div className="rounded-xl border-2 border-ink/15 bg-paper-raised p-3">
             <FindingLine f={evidenceFinding} />
           </div>
+          {p.evidenceHistory.length ? (
+            <div className="rounded-xl border-2 border-ink/15 bg-paper-sunk p-3" data-testid="evidence-history">
+              <h3 className="font-bold">Earlier evidence (replaced)</h3>
+              <ol className="mt-1 flex flex-col gap-1 text-sm">
+                {p.evidenceHistory.map((h, i) => (
+                  <li key={i}>
+                    {describeEvidence(h.evidence).text} — replaced {when(new Date(h.replacedAt))} by {h.replacedByName}
+                  </li>
+                ))}
+              </ol>
+            </div>
+          ) : null}
+          {d.may.amendEvidence ? (
+            <AmendEvidence
+              permitId={p.id}
+              requiredMpa={typeof p.evidence?.requiredStrengthMpa === "number" ? p.evidence.requiredStrengthMpa : null}
+              ageDays={typeof p.evidence?.concreteAgeDays === "number" ? p.evidence.concreteAgeDays : null}
+            />
+          ) : null}
         </section>
       ) : null}
 
@@ -328,15 +350,21 @@ export default async function PermitPage({ params }: { params: Promise<{ siteId:
 
       {p.status === "requested" ? <Review d={d} siteId={site.id} /> : <ScopeTable d={d} siteId={site.id} />}
 
-      {d.may.issue ? (
+      {d.may.refuse ? (
         <section aria-labelledby="decide-h" className="flex flex-col gap-3 rounded-xl border-2 border-brand bg-paper-raised p-4">
           <h2 id="decide-h" className="text-xl font-bold">
             Decide
           </h2>
           {d.authority.ok && d.authority.as === "delegated supervisor" ? (
-            <p className="text-sm text-ink-soft">You are deciding under the issuing scope the coordinator gave you.</p>
+            <p className="text-sm text-ink-soft">You are deciding under the issuing scope the coordinator gave you; the coordinator is e-mailed when you issue.</p>
           ) : null}
-          <IssuePanel permitId={p.id} defaultHours={site.permitValidityHours} maxDays={MAX_VALIDITY_DAYS} canIssue={d.evaluation.canIssue} blockers={d.evaluation.reasons.length} />
+          {d.may.issue ? (
+            <IssuePanel permitId={p.id} defaultHours={site.permitValidityHours} maxDays={MAX_VALIDITY_DAYS} canIssue={d.evaluation.canIssue} blockers={d.evaluation.reasons.length} />
+          ) : d.issueBlockedBy ? (
+            <p role="status" className="flex items-start gap-2 rounded-lg border-2 border-warn bg-paper-sunk p-3 font-semibold" data-testid="issue-blocked">
+              <Icon name="warn" className="mt-0.5 h-5 w-5 shrink-0 text-warn" /> {d.issueBlockedBy}
+            </p>
+          ) : null}
           <ReasonAction permitId={p.id} action="refuse" label="Refuse the request" hint="e-mailed to the requester" />
         </section>
       ) : p.status === "requested" ? (
@@ -351,8 +379,11 @@ export default async function PermitPage({ params }: { params: Promise<{ siteId:
             Actions
           </h2>
           <div className="flex flex-wrap items-start gap-3">
+            {d.may.confirmStruck && d.scope.filter((m) => m.status !== "struck").length > 1 ? (
+              <StrikeMembers permitId={p.id} members={d.scope.filter((m) => m.status !== "struck").map((m) => ({ id: m.id, tag: m.tag, zone: m.zoneName }))} />
+            ) : null}
             {d.may.confirmStruck ? (
-              <PostAction permitId={p.id} action="confirm-struck" variant="primary" label="Confirm striking is done" confirm="All members in this permit have been removed safely? They will be recorded as struck." />
+              <PostAction permitId={p.id} action="confirm-struck" variant="primary" label="Confirm striking is done" confirm="All members still standing in this permit have been removed safely? They will be recorded as struck." />
             ) : null}
             {d.may.close ? <PostAction permitId={p.id} action="close" label="Close the permit" confirm="The work under this permit is complete? Closing keeps its record; members keep their state." /> : null}
             {d.may.withdraw ? <ReasonAction permitId={p.id} action="withdraw" label="Withdraw the permit" hint="e-mailed to everyone who received it" /> : null}

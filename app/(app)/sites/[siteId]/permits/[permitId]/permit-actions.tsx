@@ -207,3 +207,127 @@ export function LiveRefresh({ active }: { active: boolean }) {
   }, [active, router]);
   return null;
 }
+
+/** Striking member by member: tick the members taken out, confirm; the permit closes with the last. */
+export function StrikeMembers({ permitId, members }: { permitId: string; members: { id: string; tag: string; zone: string | null }[] }) {
+  const router = useRouter();
+  const [chosen, setChosen] = useState<string[]>([]);
+  const [busy, setBusy] = useState(false);
+  const [error, setErrorText] = useState<string | null>(null);
+  return (
+    <fieldset className="flex flex-col gap-2 rounded-xl border-2 border-ink/30 p-3">
+      <legend className="px-1 font-bold">Confirm striking member by member</legend>
+      <ul className="flex flex-col gap-1">
+        {members.map((m) => (
+          <li key={m.id}>
+            <label className="flex min-h-touch items-center gap-3">
+              <input
+                type="checkbox"
+                className="h-6 w-6"
+                checked={chosen.includes(m.id)}
+                onChange={(e) => setChosen((c) => (e.target.checked ? [...c, m.id] : c.filter((x) => x !== m.id)))}
+              />
+              <span className="font-semibold">{m.tag}</span>
+              {m.zone ? <span className="text-sm text-ink-soft">{m.zone}</span> : null}
+            </label>
+          </li>
+        ))}
+      </ul>
+      <ErrorBox message={error} />
+      <Button
+        type="button"
+        variant="secondary"
+        disabled={busy || chosen.length === 0}
+        className="md:self-start"
+        onClick={async () => {
+          setBusy(true);
+          setErrorText(null);
+          const r = await apiJson(`/api/v1/permits/${permitId}/confirm-struck`, { body: { memberIds: chosen } });
+          setBusy(false);
+          if (!r.ok) {
+            setErrorText(Object.values(r.error.fields)[0] ?? r.error.message);
+            return;
+          }
+          setChosen([]);
+          router.refresh();
+        }}
+      >
+        {busy ? "Saving…" : `Confirm ${chosen.length || ""} member${chosen.length === 1 ? "" : "s"} struck`.replace("  ", " ")}
+      </Button>
+    </fieldset>
+  );
+}
+
+/** New strength results for an open permit to strike; the earlier ones stay in the history. */
+export function AmendEvidence({ permitId, requiredMpa, ageDays }: { permitId: string; requiredMpa: number | null; ageDays: number | null }) {
+  const router = useRouter();
+  const [open, setOpen] = useState(false);
+  const [age, setAge] = useState(ageDays != null ? String(ageDays) : "");
+  const [required, setRequired] = useState(requiredMpa != null ? String(requiredMpa) : "");
+  const [results, setResults] = useState("");
+  const [specimen, setSpecimen] = useState<"cube" | "cylinder">("cube");
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [busy, setBusy] = useState(false);
+  if (!open)
+    return (
+      <Button type="button" variant="secondary" onClick={() => setOpen(true)} className="md:self-start">
+        Enter new strength results…
+      </Button>
+    );
+  const num = (s: string) => (s.trim() === "" ? Number.NaN : Number(s.replace(",", ".")));
+  return (
+    <form
+      noValidate
+      aria-label="New strength results"
+      className="flex flex-col gap-3 rounded-xl border-2 border-ink/30 p-3"
+      onSubmit={async (e) => {
+        e.preventDefault();
+        const list = results.split(/[;\s]+/).filter(Boolean).map(num);
+        const local: Record<string, string> = {};
+        if (!Number.isFinite(num(age))) local.concreteAgeDays = "Enter the age of the concrete in days.";
+        if (!Number.isFinite(num(required))) local.requiredStrengthMpa = "Enter the required striking strength in MPa.";
+        if (list.length === 0 || list.some((x) => !Number.isFinite(x))) local.results = "Enter each result in MPa, separated by spaces (e.g. 24.5 23.0).";
+        setErrors(local);
+        if (Object.keys(local).length) return;
+        setBusy(true);
+        const r = await apiJson(`/api/v1/permits/${permitId}/evidence`, {
+          method: "PATCH",
+          body: { evidence: { basis: "strength", concreteAgeDays: num(age), requiredStrengthMpa: num(required), results: list.map((strengthMpa) => ({ specimen, strengthMpa })) } },
+        });
+        setBusy(false);
+        if (!r.ok) {
+          const f: Record<string, string> = {};
+          for (const [k, v] of Object.entries(r.error.fields)) f[k.startsWith("evidence.results") ? "results" : k.replace("evidence.", "")] = v;
+          setErrors(Object.keys(f).length ? f : { results: r.error.message });
+          return;
+        }
+        setOpen(false);
+        router.refresh();
+      }}
+    >
+      <Field id="ev-age" label="Concrete age (days)" error={errors.concreteAgeDays}>
+        <input id="ev-age" inputMode="numeric" className={inputClass} value={age} onChange={(e) => setAge(e.target.value)} aria-invalid={!!errors.concreteAgeDays} aria-describedby={describedBy("ev-age", errors.concreteAgeDays)} />
+      </Field>
+      <Field id="ev-required" label="Required striking strength (MPa)" error={errors.requiredStrengthMpa}>
+        <input id="ev-required" inputMode="decimal" className={inputClass} value={required} onChange={(e) => setRequired(e.target.value)} aria-invalid={!!errors.requiredStrengthMpa} aria-describedby={describedBy("ev-required", errors.requiredStrengthMpa)} />
+      </Field>
+      <Field id="ev-specimen" label="Specimens">
+        <select id="ev-specimen" className={inputClass} value={specimen} onChange={(e) => setSpecimen(e.target.value as "cube" | "cylinder")}>
+          <option value="cube">Cubes</option>
+          <option value="cylinder">Cylinders</option>
+        </select>
+      </Field>
+      <Field id="ev-results" label="Results (MPa, separated by spaces)" error={errors.results}>
+        <input id="ev-results" className={inputClass} value={results} onChange={(e) => setResults(e.target.value)} placeholder="e.g. 24.5 23.0" aria-invalid={!!errors.results} aria-describedby={describedBy("ev-results", errors.results)} />
+      </Field>
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" disabled={busy}>
+          {busy ? "Saving…" : "Save the new results"}
+        </Button>
+        <Button type="button" variant="secondary" onClick={() => setOpen(false)}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { Forbidden } from "@/components/forbidden";
+import { listSchemeDocuments } from "@/db/queries/scheme-documents";
 import { getScheme } from "@/db/queries/schemes";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { isUuid } from "@/lib/authz";
@@ -21,10 +22,21 @@ export default async function SchemePage({ params }: { params: Promise<{ siteId:
     s.drawingKey ? presignGet(s.drawingKey, 3600, `${s.reference}-drawing`) : null,
     s.certificateKey ? presignGet(s.certificateKey, 3600, `${s.reference}-check-certificate`) : null,
   ]);
+  const documents = (await listSchemeDocuments({ schemeId: s.id })).map((d) => ({
+    id: d.id,
+    kind: d.kind,
+    drawingNumber: d.drawingNumber,
+    revision: d.revision,
+    checkerName: d.checkerName,
+    checkCategory: d.checkCategory,
+    documentDate: d.documentDate,
+    uploadedByName: d.uploadedByName,
+    current: d.objectKey === s.drawingKey || d.objectKey === s.certificateKey,
+  }));
   return (
     <div className="mx-auto flex max-w-2xl flex-col gap-4">
       <h1 className="text-2xl font-bold">{s.reference} — {s.title}</h1>
-      <SchemeFiles siteId={site.id} schemeId={s.id} drawingUrl={drawingUrl} certificateUrl={certificateUrl} canEdit />
+      <SchemeFiles siteId={site.id} schemeId={s.id} drawingUrl={drawingUrl} certificateUrl={certificateUrl} category={s.category} documents={documents} canEdit />
       <SchemeForm
         siteId={site.id}
         existing={{ ...s, validFrom: s.validFrom?.toISOString() ?? null, validUntil: s.validUntil?.toISOString() ?? null }}

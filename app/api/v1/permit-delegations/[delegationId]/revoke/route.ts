@@ -1,8 +1,4 @@
-import { apiHandler } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
+import { siteRoute } from "@/lib/api/route";
 import { revokeIssuing } from "@/lib/permits";
 
-export const POST = apiHandler<{ delegationId: string }>(async (_req, { params }) => {
-  const user = await requireApiUser();
-  return { delegation: await revokeIssuing({ user, delegationId: params.delegationId }) };
-});
+export const POST = siteRoute({ resource: "delegation", permission: "delegatePermits" }, async (ctx) => ({ delegation: await revokeIssuing(ctx) }));

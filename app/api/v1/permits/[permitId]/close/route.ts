@@ -1,9 +1,7 @@
-import { apiHandler } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { closePermit, permitDetail, permitJson } from "@/lib/permits";
+import { siteRoute } from "@/lib/api/route";
+import { closePermit, mayDecide, permitDetail, permitJson } from "@/lib/permits";
 
-export const POST = apiHandler<{ permitId: string }>(async (_req, { params }) => {
-  const user = await requireApiUser();
-  await closePermit({ user, permitId: params.permitId });
-  return { permit: permitJson(await permitDetail(user, params.permitId)) };
+export const POST = siteRoute({ resource: "permit", permission: "viewSite", authorize: mayDecide }, async (ctx) => {
+  await closePermit(ctx);
+  return { permit: permitJson(await permitDetail(ctx)) };
 });

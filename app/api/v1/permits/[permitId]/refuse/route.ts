@@ -1,11 +1,8 @@
-import { apiHandler, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { refusePermit, loadPermitForUser, permitDetail, permitJson } from "@/lib/permits";
+import { siteRoute } from "@/lib/api/route";
+import { mayDecide, permitDetail, permitJson, refusePermit } from "@/lib/permits";
+import { permitReasonSchema } from "@/lib/validations/permit";
 
-export const POST = apiHandler<{ permitId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  await loadPermitForUser(user, params.permitId);
-  const body = await readJson(req);
-  await refusePermit({ user, permitId: params.permitId, body });
-  return { permit: permitJson(await permitDetail(user, params.permitId)) };
+export const POST = siteRoute({ resource: "permit", permission: "viewSite", authorize: mayDecide, body: permitReasonSchema }, async (ctx) => {
+  await refusePermit(ctx);
+  return { permit: permitJson(await permitDetail(ctx)) };
 });

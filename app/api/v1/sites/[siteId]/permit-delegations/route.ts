@@ -1,19 +1,12 @@
 // Issuing scope a coordinator gives a supervisor: which zones, until when; who gave it and when.
 import { listDelegations } from "@/db/queries/permits";
-import { apiHandler, created, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
-import { assertSitePermission } from "@/lib/authz";
+import { created } from "@/lib/api";
+import { siteRoute } from "@/lib/api/route";
 import { delegateIssuing } from "@/lib/permits";
+import { delegationSchema } from "@/lib/validations/permit";
 
-export const GET = apiHandler<{ siteId: string }>(async (_req, { params }) => {
-  const user = await requireApiUser();
-  const { site } = await assertSitePermission(user, params.siteId, "viewSite");
-  return { delegations: await listDelegations({ siteId: site.id }) };
-});
+export const GET = siteRoute({ resource: "site", permission: "viewSite" }, async ({ site }) => ({ delegations: await listDelegations({ siteId: site.id }) }));
 
-export const POST = apiHandler<{ siteId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  await assertSitePermission(user, params.siteId, "delegatePermits");
-  const body = await readJson(req);
-  return created({ delegation: await delegateIssuing({ user, siteId: params.siteId, body }) });
-});
+export const POST = siteRoute({ resource: "site", permission: "delegatePermits", body: delegationSchema }, async (ctx) =>
+  created({ delegation: await delegateIssuing(ctx) }),
+);

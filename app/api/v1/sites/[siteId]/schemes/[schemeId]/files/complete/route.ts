@@ -1,10 +1,6 @@
-import { apiHandler, readJson } from "@/lib/api";
-import { requireApiUser } from "@/lib/auth";
+import { siteRoute } from "@/lib/api/route";
 import { completeSchemeFile } from "@/lib/register/schemes";
+import { schemeFileCompleteSchema } from "@/lib/validations/scheme";
 
-/** { kind, key } → the scheme with the file recorded (after checking it is a PDF or an image). */
-export const POST = apiHandler<{ siteId: string; schemeId: string }>(async (req, { params }) => {
-  const user = await requireApiUser();
-  const input = await readJson(req);
-  return completeSchemeFile({ user, siteId: params.siteId, schemeId: params.schemeId, input });
-});
+/** { kind, key, … } → the scheme with the document recorded (after checking it is a PDF or an image). */
+export const POST = siteRoute({ resource: "scheme", permission: "manageSchemes", body: schemeFileCompleteSchema }, (ctx) => completeSchemeFile(ctx));
