@@ -64,6 +64,22 @@ export const signInThrottle = pgTable("sign_in_throttle", {
   blockedUntil: timestamp("blocked_until", { withTimezone: true }),
 });
 
+/**
+ * Sessions ended by signing out. A session is a signed cookie with an id (`sid`); signing out
+ * records the id here until the cookie would have expired anyway, and every request checks it in
+ * the same query that reads the person (primary-key lookup).
+ */
+export const revokedSessions = pgTable(
+  "revoked_sessions",
+  {
+    sid: text("sid").primaryKey(),
+    userId: uuid("user_id").references(() => users.id, { onDelete: "cascade" }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }).notNull().defaultNow(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+  },
+  (t) => [index("revoked_sessions_expiry").on(t.expiresAt)],
+);
+
 export const sites = pgTable("sites", {
   id: id(),
   organisationId: uuid("organisation_id").notNull().references(() => organisations.id),

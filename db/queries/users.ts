@@ -1,7 +1,7 @@
 import "server-only";
 import { and, count, eq, isNull, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
-import { memberships, organisations, signInThrottle, sites, users } from "@/db/schema";
+import { memberships, organisations, revokedSessions, signInThrottle, sites, users } from "@/db/schema";
 
 export type SessionUser = {
   id: string;
@@ -34,9 +34,13 @@ export async function getUserForSignIn({ email }: { email: string }, tx: DbOrTx 
  * cookie: a deactivation or password reset bumps the stored one, so every older session ends.
  */
 export async function getSessionUser(
-  { id, sessionVersion }: { id: string; sessionVersion?: number },
+  { id, sessionVersion, sid }: { id: string; sessionVersion?: number; sid?: string },
   tx: DbOrTx = db,
 ): Promise<SessionUser | null> {
+  // A signed-out session's id is in revoked_sessions: the same round trip answers both questions.
+  const revoked = sid
+    ? sql<boolean>`exists (select 1 from ${revokedSessions} where ${revokedSessions.sid} = ${sid})`
+    : sql<boolean>`false`;
   const [row] = await tx
     .select({
       id: users.id,
@@ -47,14 +51,15 @@ export async function getSessionUser(
       isOrgAdmin: users.isOrgAdmin,
       disabledAt: users.disabledAt,
       sessionVersion: users.sessionVersion,
+      revoked,
     })
     .from(users)
     .innerJoin(organisations, eq(organisations.id, users.organisationId))
     .where(eq(users.id, id))
     .limit(1);
-  if (!row || row.disabledAt) return null;
+  if (!row || row.disabledAt || row.revoked) return null;
   if (sessionVersion !== undefined && sessionVersion !== row.sessionVersion) return null;
-  const { disabledAt: _disabled, ...user } = row;
+  const { disabledAt: _disabled, revoked: _revoked, ...user } = row;
   return user;
 }
 
@@ -197,3 +202,30 @@ export async function listActiveOrgAdmins({ organisationId }: { organisationId: 
 
 /** Throttle rows are shared with sign-in under a prefixed key ("reset:…", "change:…"). */
 export const throttleKey = (kind: "reset" | "change", email: string) => `${kind}:${email.toLowerCase()}`;
+
+/** Ends one session for good: its id is refused until the cookie would have expired anyway. */
+export async function revokeSession({ sid, userId, expiresAt }: { sid: string; userId: string | null; expiresAt: Date }, tx: DbOrTx = db) {
+  await tx.insert(revokedSessions).values({ sid, userId, expiresAt }).onConflictDoNothing();
+}
+
+/** Forgets revocations of sessions that have expired by themselves (the worker runs it hourly). */
+export async function purgeExpiredRevocations({ now = new Date() }: { now?: Date } = {}, tx: DbOrTx = db) {
+  const rows = await tx.delete(revokedSessions).where(sql`${revokedSessions.expiresAt} < ${now.toISOString()}::timestamptz`).returning({ sid: revokedSessions.sid });
+  return rows.length;
+}
+
+/**
+ * Counts one more action under `key` in a fixed window and returns the count, atomically (one
+ * upsert), so a limit holds however many app instances share the database. Uses the sign-in
+ * throttle table: its key column holds any key ("invite:<userId>", "reset:<email>"…).
+ */
+export async function countInWindow({ key, now, windowMs }: { key: string; now: Date; windowMs: number }, tx: DbOrTx = db) {
+  const start = new Date(now.getTime() - windowMs).toISOString();
+  const [row] = await tx.execute<{ failures: number }>(sql`
+    insert into ${signInThrottle} (email, failures, last_failure_at) values (${key}, 1, ${now.toISOString()}::timestamptz)
+    on conflict (email) do update set
+      failures = case when ${signInThrottle.lastFailureAt} < ${start}::timestamptz then 1 else ${signInThrottle.failures} + 1 end,
+      last_failure_at = case when ${signInThrottle.lastFailureAt} < ${start}::timestamptz then ${now.toISOString()}::timestamptz else ${signInThrottle.lastFailureAt} end
+    returning failures`);
+  return Number(row?.failures ?? 1);
+}

@@ -14,9 +14,9 @@ export { safeCallbackPath };
 
 export const getCurrentUser = cache(async (): Promise<SessionUser | null> => {
   const session = await getServerSession(authOptions);
-  const claims = session?.user as { id?: string; sv?: number } | undefined;
+  const claims = session?.user as { id?: string; sv?: number; sid?: string } | undefined;
   if (!claims?.id) return null;
-  return getSessionUser({ id: claims.id, sessionVersion: claims.sv ?? 0 });
+  return getSessionUser({ id: claims.id, sessionVersion: claims.sv ?? 0, sid: claims.sid });
 });
 
 /**

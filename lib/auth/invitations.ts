@@ -8,11 +8,11 @@ import {
 } from "@/db/queries/invitations";
 import { addUserRolesOnSite, listUserRolesOnSite } from "@/db/queries/memberships";
 import { enqueueEmails } from "@/db/queries/outbox";
-import { createUser, getUserByEmail } from "@/db/queries/users";
+import { countInWindow, createUser, getUserByEmail } from "@/db/queries/users";
 import type { SiteRole } from "@/db/schema";
 import { invitationEmail } from "@/emails/invitation";
 import type { Site } from "@/lib/api/resources";
-import { AppError, ConflictError, NotFoundError, UnauthorizedError, ValidationError } from "@/lib/errors";
+import { AppError, ConflictError, NotFoundError, TooManyRequestsError, UnauthorizedError, ValidationError } from "@/lib/errors";
 import { ROLE_LABELS } from "@/lib/permissions";
 import type { z } from "zod";
 import type { acceptInvitationSchema, invitationSchema } from "@/lib/validations/onboarding";
@@ -58,7 +58,17 @@ function queueInvitationEmail(
   return enqueueEmails([{ siteId: site.id, kind: "invitation", toEmail: invitation.email, ...mail, relatedType: "invitation", relatedId: invitation.id }], tx);
 }
 
+/** Invitation e-mails (new and resent) one admin may send in an hour, across every app instance. */
+export const INVITATIONS_PER_HOUR = 30;
+
+async function assertInvitationBudget(user: SessionUser, now = new Date()) {
+  const sent = await countInWindow({ key: `invite:${user.id}`, now, windowMs: 60 * 60 * 1000 });
+  if (sent > INVITATIONS_PER_HOUR)
+    throw new TooManyRequestsError(`You have sent ${INVITATIONS_PER_HOUR} invitations in the last hour; wait a while before sending more.`);
+}
+
 export async function inviteToSite({ user, site, input }: { user: SessionUser; site: Site; input: z.output<typeof invitationSchema> }) {
+  await assertInvitationBudget(user);
   return transaction(async (tx) => {
     const existing = await getUserByEmail({ email: input.email }, tx);
     if (existing && existing.organisationId === user.organisationId) {
@@ -87,6 +97,7 @@ function assertOpen(i: InvitationRow) {
 /** A new link (the previous one stops working) and a fresh 7 days. */
 export async function resendInvitation({ user, site, invitation }: { user: SessionUser; site: Site; invitation: InvitationRow }) {
   assertOpen(invitation);
+  await assertInvitationBudget(user);
   return transaction(async (tx) => {
     const { token, hash } = newToken();
     const renewed = await renewInvitation({ invitationId: invitation.id, tokenHash: hash, expiresAt: expiry() }, tx);

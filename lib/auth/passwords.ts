@@ -6,7 +6,7 @@ import { recordAudit } from "@/db/queries/audit";
 import { enqueueEmails } from "@/db/queries/outbox";
 import { createPasswordReset, getPasswordResetForUpdate, markPasswordResetsUsed } from "@/db/queries/password-resets";
 import {
-  clearSignInFailures, getPasswordHash, getThrottle, getUserByEmail, recordSignInFailure, setPasswordHash, throttleKey,
+  clearSignInFailures, countInWindow, getPasswordHash, getThrottle, getUserByEmail, recordSignInFailure, setPasswordHash, throttleKey,
 } from "@/db/queries/users";
 import { passwordResetEmail } from "@/emails/password-reset";
 import { AppError, NotFoundError, TooManyRequestsError, ValidationError } from "@/lib/errors";
@@ -27,13 +27,10 @@ export const RESET_ACCEPTED = {
 };
 
 export async function requestPasswordReset({ email, now = new Date() }: { email: string; now?: Date }) {
-  const key = throttleKey("reset", email);
-  const throttle = await getThrottle({ email: key });
-  const recent = throttle && now.getTime() - throttle.lastFailureAt.getTime() < WINDOW_MS;
-  const count = (recent ? throttle.failures : 0) + 1;
+  // One atomic count in PostgreSQL, so the limit holds across every app instance.
+  const count = await countInWindow({ key: throttleKey("reset", email), now, windowMs: WINDOW_MS });
   if (count > RESET_REQUESTS_PER_WINDOW)
     throw new TooManyRequestsError("Too many reset requests for this address. Wait 15 minutes and try again.");
-  await recordSignInFailure({ email: key, now, failures: count, blockedUntil: null });
   const user = await getUserByEmail({ email });
   if (!user || user.disabledAt) return RESET_ACCEPTED;
   const { token, hash } = newToken();

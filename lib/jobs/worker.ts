@@ -1,6 +1,7 @@
 // The worker process: delivers the e-mail outbox and runs scheduled scans. Several may run at
 // once: outbox rows are claimed with SKIP LOCKED, and scheduled jobs are single-run by pg-boss.
 import os from "node:os";
+import { purgeExpiredRevocations } from "@/db/queries/users";
 import { deliverDueEmails } from "./outbox";
 import { renderPendingPermitPdfs } from "@/lib/permits/pdf";
 import { QUEUES, startBoss } from "./queue";
@@ -43,6 +44,11 @@ async function main() {
     every(OUTBOX_POLL_MS, "outbox delivery", async () => {
       const r = await deliverDueEmails({ worker: workerName });
       if (r.claimed) console.log(`[worker ${workerName}] outbox: ${r.sent} sent, ${r.failed} failed`);
+    }),
+    // Sign-outs are remembered only until the signed-out cookie would have expired anyway.
+    every(60 * 60 * 1000, "session clean-up", async () => {
+      const n = await purgeExpiredRevocations();
+      if (n) console.log(`[worker ${workerName}] forgot ${n} expired signed-out sessions`);
     }),
     // A permit PDF that failed to render after its issue is retried here; its e-mails wait for it.
     every(10_000, "permit PDFs", async () => {

@@ -77,3 +77,11 @@ export function originAllowed(args: { method: string; hasCookie: boolean; origin
   if (args.origin === "null") return false;
   return args.origin === args.appOrigin || args.origin === args.requestOrigin;
 }
+
+/** The session cookie: never readable by scripts, not sent on cross-site subrequests, https-only under https. */
+export function sessionCookie(https: boolean) {
+  return {
+    name: `${https ? "__Secure-" : ""}next-auth.session-token`,
+    options: { httpOnly: true, sameSite: "lax" as const, path: "/", secure: https },
+  };
+}

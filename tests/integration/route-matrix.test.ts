@@ -61,7 +61,7 @@ const clients = new Map<string, Client>();
 /** Roles per demo user: on the fixture site, and on any of their sites (for site-less routes). */
 const siteRoles = new Map<string, SiteRole[]>();
 const anyRoles = new Map<string, SiteRole[]>();
-const created: { alertId?: string; delegationId?: string } = {};
+const created: { alertId?: string; delegationId?: string; invitationId?: string } = {};
 
 function fill(url: string): string {
   return url.replace(/\[([^\]]+)\]/g, (_, name: string) => {
@@ -97,7 +97,11 @@ async function fingerprint() {
            (select count(*) from inspection_triggers)::int as triggers, (select count(*) from permits)::int as permits,
            (select count(*) from permit_delegations)::int as delegations, (select count(*) from alert_preferences)::int as prefs,
            (select max(updated_at) from members) as members_updated, (select max(updated_at) from member_types) as types_updated,
-           (select max(updated_at) from schemes) as schemes_updated`;
+           (select max(updated_at) from schemes) as schemes_updated,
+           (select count(*) from invitations)::int as invitations, (select max(coalesce(revoked_at, last_sent_at, created_at)) from invitations) as invitations_changed,
+           (select count(*) from memberships)::int as memberships, (select count(*) from users where disabled_at is not null)::int as disabled,
+           (select count(*) from password_resets)::int as resets, (select count(*) from organisations)::int as organisations,
+           (select count(*) from sites)::int as sites, (select max(session_version) from users) as session_versions`;
   return row;
 }
 
@@ -130,6 +134,16 @@ beforeAll(async () => {
     values (${site!.id}, ${users!.supervisor}, ${JSON.stringify([member!.zone_id])}::jsonb, now() + interval '1 day', ${users!.coordinator}, now())
     returning id`;
   created.delegationId = fx.delegationId = delegation!.id;
+  // People and invitations: the engineer as the person acted on, a pending invitation of our own,
+  // and a link token of the right shape (public token routes read their body before the token).
+  const [engineer] = await sql<{ id: string }[]>`select id from users where email = 'engineer@demo.example'`;
+  fx.userId = engineer!.id;
+  const [invitation] = await sql<{ id: string }[]>`
+    insert into invitations (organisation_id, email, site_id, roles, token_hash, invited_by, expires_at)
+    values (${site!.organisation_id}, 'route-matrix-invitee@invited.example', ${site!.id}, '{engineer}', ${`route-matrix-${Date.now()}`}, ${users!.coordinator}, now() + interval '7 days')
+    returning id`;
+  created.invitationId = fx.invitationId = invitation!.id;
+  fx.token = "A".repeat(43);
 
   clients.set("anonymous", anonymous());
   for (const email of [...DEMO, OTHER_ADMIN]) {
@@ -148,6 +162,7 @@ beforeAll(async () => {
 afterAll(async () => {
   if (created.alertId) await sql`delete from alerts where id = ${created.alertId}`;
   if (created.delegationId) await sql`delete from permit_delegations where id = ${created.delegationId}`;
+  if (created.invitationId) await sql`delete from invitations where id = ${created.invitationId}`;
   await sql.end({ timeout: 5 });
 });
 
