@@ -1,6 +1,7 @@
 // The outcome of a capacity check in words, an icon and colour: capacity, utilisation, pass or
 // fail, and why (basis, load factor, warnings and any reason the check could not run).
 import { Icon } from "@/components/icons";
+import { formatUtilisation } from "@/lib/client/format";
 import { formatForce } from "@/lib/units";
 
 export type CheckSummary = {
@@ -42,10 +43,6 @@ export function PassBadge({ pass, large = false }: { pass: boolean | null; large
       <Icon name="bad" className={large ? "h-7 w-7" : "h-4 w-4"} /> FAIL
     </span>
   );
-}
-
-export function formatUtilisation(u: number | null) {
-  return u == null || !Number.isFinite(u) ? "—" : `${(u * 100).toFixed(0)} %`;
 }
 
 export function CheckResult({ check, loadN, forceUnit = "kN", title = "Capacity check" }: { check: CheckSummary; loadN: number; forceUnit?: "kN" | "kip"; title?: string }) {
