@@ -12,7 +12,7 @@ export function UtilBar({ u }: { u: number | null }) {
   const pct = Math.min(100, Math.max(0, u * 100));
   const colour = u > 1 ? "bg-bad" : u > 0.9 ? "bg-warn" : "bg-ok";
   return (
-    <span aria-hidden className="ml-2 inline-block h-1.5 w-12 overflow-hidden rounded bg-paper-sunk align-middle print:hidden">
+    <span aria-hidden className="ml-1.5 inline-block h-1.5 w-8 overflow-hidden 2xl:w-12 rounded bg-paper-sunk align-middle print:hidden">
       <span className={`block h-full ${colour}`} style={{ width: `${pct}%` }} />
     </span>
   );

@@ -44,6 +44,8 @@ export function useRegisterColumns({ siteId, unitSystem }: { siteId: string; uni
       },
       {
         id: "tag",
+        // TanStack sorts (here: asks the server to sort) only columns with an accessor.
+        accessorFn: (r) => r.tag,
         header: "Tag",
         enableHiding: false,
         cell: ({ row }) => (
@@ -52,7 +54,7 @@ export function useRegisterColumns({ siteId, unitSystem }: { siteId: string; uni
           </Link>
         ),
       },
-      { id: "status", header: "Status", enableHiding: false, cell: ({ row }) => <StatusBadge status={row.original.status} /> },
+      { id: "status", accessorFn: (r) => r.status, header: "Status", enableHiding: false, cell: ({ row }) => <StatusBadge status={row.original.status} /> },
       {
         id: "check",
         header: "Check",
@@ -62,6 +64,7 @@ export function useRegisterColumns({ siteId, unitSystem }: { siteId: string; uni
       },
       {
         id: "utilisation",
+        accessorFn: (r) => r.utilisation,
         header: "Utilisation",
         enableHiding: false,
         meta: { numeric: true },
@@ -74,13 +77,13 @@ export function useRegisterColumns({ siteId, unitSystem }: { siteId: string; uni
       },
       { id: "load", header: "Load", enableSorting: false, meta: { numeric: true }, cell: ({ row }) => formatForceFor(row.original.loadN, unitSystem) },
       { id: "capacity", header: "Capacity", enableSorting: false, meta: { numeric: true }, cell: ({ row }) => formatForceFor(row.original.capacityN, unitSystem) },
-      { id: "extension", header: "Extension", enableHiding: false, meta: { numeric: true }, cell: ({ row }) => formatLengthFor(row.original.extensionMm, unitSystem) },
+      { id: "extension", accessorFn: (r) => r.extensionMm, header: "Extension", enableHiding: false, meta: { numeric: true }, cell: ({ row }) => formatLengthFor(row.original.extensionMm, unitSystem) },
       {
         id: "type",
         header: "Type",
         enableSorting: false,
         cell: ({ row }) => (
-          <span className="block max-w-36 truncate print:max-w-none print:whitespace-normal" title={row.original.type.name}>
+          <span className="block max-w-28 truncate 2xl:max-w-36 print:max-w-none print:whitespace-normal" title={row.original.type.name}>
             {row.original.type.name}
           </span>
         ),
@@ -90,14 +93,14 @@ export function useRegisterColumns({ siteId, unitSystem }: { siteId: string; uni
         header: "Zone",
         enableSorting: false,
         cell: ({ row }) => (
-          <span className="block max-w-32 truncate print:max-w-none print:whitespace-normal" title={row.original.zone?.name}>
+          <span className="block max-w-24 truncate 2xl:max-w-32 print:max-w-none print:whitespace-normal" title={row.original.zone?.name}>
             {row.original.zone?.name ?? "—"}
           </span>
         ),
       },
       { id: "scheme", header: "Scheme", enableSorting: false, cell: ({ row }) => row.original.scheme?.reference ?? "—" },
       { id: "photos", header: "Photos", enableSorting: false, meta: { numeric: true }, cell: ({ row }) => row.original.photoCount },
-      { id: "updated", header: "Updated", cell: ({ row }) => <span className="whitespace-nowrap">{formatUpdated(row.original.updatedAt)}</span> },
+      { id: "updated", accessorFn: (r) => r.updatedAt, header: "Updated", cell: ({ row }) => <span className="whitespace-nowrap">{formatUpdated(row.original.updatedAt)}</span> },
     ],
     [siteId, unitSystem],
   );

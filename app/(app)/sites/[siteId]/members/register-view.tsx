@@ -77,6 +77,8 @@ function Register({ siteId, siteName, unitSystem, options, canImport, canLog, ca
     manualSorting: true,
     manualPagination: true,
     enableSortingRemoval: false,
+    // A header's first click sorts ascending, the next descending (the phone menu offers both).
+    sortDescFirst: false,
     state: { sorting, rowSelection: selection, columnVisibility },
     onRowSelectionChange: setSelection,
     onSortingChange: (updater) => {
