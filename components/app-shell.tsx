@@ -10,16 +10,16 @@ export function AppShell({
   user, nav, rootHref, context, children,
 }: { user: SessionUser; nav: NavItem[]; rootHref: string; context?: ReactNode; children: ReactNode }) {
   return (
-    <div className="min-h-dvh md:grid md:grid-cols-[15rem_1fr]">
-      <aside className="hidden border-r-2 border-ink/10 bg-paper-raised p-4 md:block">
+    <div className="min-h-dvh md:grid md:grid-cols-[15rem_1fr] print:block">
+      <aside className="hidden border-r-2 border-ink/10 bg-paper-raised p-4 md:block print:hidden">
         <Link href="/sites" className="mb-6 flex items-center gap-2 text-xl font-bold">
           <img src="/icon.svg" alt="" width={32} height={32} /> Strutwise
         </Link>
         {context ? <div className="mb-4 text-sm text-ink-soft">{context}</div> : null}
         <SideNav items={nav} rootHref={rootHref} />
       </aside>
-      <div className="flex min-w-0 flex-col pb-24 md:pb-0">
-        <header className="sticky top-0 z-10 flex items-center justify-between gap-2 border-b-2 border-ink/10 bg-paper-raised px-4 py-2">
+      <div className="flex min-w-0 flex-col pb-24 md:pb-0 print:pb-0">
+        <header className="sticky top-0 z-10 print:hidden flex items-center justify-between gap-2 border-b-2 border-ink/10 bg-paper-raised px-4 py-2">
           <div className="flex min-w-0 items-center gap-2 md:hidden">
             <Link href="/sites" aria-label="All sites" className="flex min-h-touch min-w-touch items-center">
               <img src="/icon.svg" alt="" width={28} height={28} />
@@ -48,7 +48,7 @@ export function AppShell({
             </div>
           </details>
         </header>
-        <main className="mx-auto w-full max-w-6xl flex-1 p-4 md:p-6">{children}</main>
+        <main className="mx-auto w-full max-w-6xl flex-1 p-4 md:p-6 print:max-w-none print:p-0">{children}</main>
       </div>
       <BottomNav items={nav} rootHref={rootHref} />
     </div>

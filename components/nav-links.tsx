@@ -49,7 +49,7 @@ export function BottomNav({ items, rootHref }: { items: NavItem[]; rootHref: str
   const primary = items.filter((i) => i.primary).slice(0, 4);
   const rest = items.filter((i) => !primary.includes(i));
   return (
-    <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 border-t-2 border-ink/20 bg-paper-raised pb-[env(safe-area-inset-bottom)] md:hidden">
+    <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 border-t-2 border-ink/20 bg-paper-raised pb-[env(safe-area-inset-bottom)] md:hidden print:hidden">
       {open && rest.length > 0 ? (
         <ul className="border-b border-ink/10 p-2">
           {rest.map((item) => (

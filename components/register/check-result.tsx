@@ -1,19 +1,13 @@
 // The outcome of a capacity check in words, an icon and colour: capacity, utilisation, pass or
 // fail, and why (basis, load factor, warnings and any reason the check could not run).
 import { Icon } from "@/components/icons";
+import type { CheckView } from "@/lib/register/members";
+import { formatUtilisation } from "@/lib/client/format";
 import { formatForce } from "@/lib/units";
 
-export type CheckSummary = {
-  capacityN: number | null;
-  utilisation: number | null;
-  pass: boolean;
-  method: string;
-  basis: string;
-  loadFactor: number;
-  loadFactorSource: string;
+/** What the screen needs of the server's check (CheckView, as the API sends it). */
+export type CheckSummary = Pick<CheckView, "capacityN" | "utilisation" | "pass" | "method" | "basis" | "loadFactor" | "loadFactorSource" | "warnings" | "errors"> & {
   loadBasis?: string | null;
-  warnings: string[];
-  errors?: { field: string; message: string }[];
 };
 
 export const BASIS_LABELS: Record<string, string> = {
@@ -42,10 +36,6 @@ export function PassBadge({ pass, large = false }: { pass: boolean | null; large
       <Icon name="bad" className={large ? "h-7 w-7" : "h-4 w-4"} /> FAIL
     </span>
   );
-}
-
-export function formatUtilisation(u: number | null) {
-  return u == null || !Number.isFinite(u) ? "—" : `${(u * 100).toFixed(0)} %`;
 }
 
 export function CheckResult({ check, loadN, forceUnit = "kN", title = "Capacity check" }: { check: CheckSummary; loadN: number; forceUnit?: "kN" | "kip"; title?: string }) {

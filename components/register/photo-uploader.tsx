@@ -4,7 +4,7 @@
 // rest of the form is untouched.
 import { useCallback, useEffect, useRef, useState } from "react";
 import { Icon } from "@/components/icons";
-import { apiJson, putWithProgress } from "./api";
+import { apiJson, putWithProgress } from "@/lib/client/api";
 
 const MAX_BYTES = 15 * 1024 * 1024;
 

@@ -1,22 +1,12 @@
 // How permits show numbers and times: the site's unit system and time zone, with units always written.
-import { formatForce, formatLength } from "@/lib/units";
+import { formatForceFor, formatLengthFor, formatUtilisation, type UnitSystem } from "@/lib/client/format";
 
-export type UnitSystem = "si" | "us";
+export type { UnitSystem };
 
-export function fmtForce(n: number | null | undefined, units: UnitSystem): string {
-  if (n == null || !Number.isFinite(n)) return "—";
-  return units === "us" ? formatForce(n, "kip", 2) : formatForce(n, "kN", 1);
-}
-
-export function fmtLength(mm: number | null | undefined, units: UnitSystem): string {
-  if (mm == null || !Number.isFinite(mm)) return "—";
-  return units === "us" ? formatLength(mm, "in", 1) : formatLength(mm, "mm", 0);
-}
-
-export function fmtUtilisation(u: number | null | undefined): string {
-  if (u == null || !Number.isFinite(u)) return "—";
-  return `${Math.round(u * 100)} %`;
-}
+// Figures are written by the one client kit formatter (lib/client/format.ts).
+export const fmtForce = formatForceFor;
+export const fmtLength = formatLengthFor;
+export const fmtUtilisation = formatUtilisation;
 
 export function fmtDateTime(d: Date | string | null | undefined, timeZone: string, units: UnitSystem = "si"): string {
   if (!d) return "—";

@@ -2,7 +2,7 @@
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { Icon } from "@/components/icons";
-import { apiJson } from "@/components/register/api";
+import { apiJson } from "@/lib/client/api";
 
 function useAction(path: string) {
   const router = useRouter();

@@ -9,9 +9,8 @@ import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { fieldForPath, formToRequest, unitLabels } from "@/lib/calculator/form-request";
 import { calculate, capacityCurve, END_CONDITIONS, METHODS, STEEL_GRADES, TIMBER_CLASSES } from "@/lib/engineering";
 import type { CalculationResult, MethodId } from "@/lib/engineering";
-import { fromMm, fromN } from "@/lib/units";
 import { CALCULATOR_DEFAULTS, calculatorFormSchema, type CalculatorForm } from "@/lib/validations/calculator";
-import { CapacityChart } from "./capacity-chart";
+import { CapacityChart } from "@/components/capacity-chart";
 import { ResultView } from "./result-view";
 
 type Props = { defaultUnits: "si" | "us"; defaultDesignCode: "en1993" | "aisc360-lrfd" | "aisc360-asd" };
@@ -77,16 +76,9 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
       to = t[t.length - 1]!.lengthMm;
     }
     const us = outcome.units === "us";
-    const pts = capacityCurve(req, from, to, 60).map((p) => ({
-      length: us ? fromMm(p.lengthMm, "ft") : fromMm(p.lengthMm, "m"),
-      capacity: fromN(p.capacityN, us ? "kip" : "kN"),
-      euler: p.eulerN !== undefined ? fromN(p.eulerN, us ? "kip" : "kN") : undefined,
-    }));
-    const operating =
-      req.loadN !== undefined
-        ? { length: us ? fromMm(L, "ft") : fromMm(L, "m"), load: fromN(req.loadN as number, us ? "kip" : "kN") }
-        : null;
-    return { pts, operating, lengthUnit: us ? "ft" : "m", forceUnit: us ? "kip" : "kN" };
+    const points = capacityCurve(req, from, to, 60);
+    const operating = req.loadN !== undefined ? { lengthMm: L, loadN: req.loadN as number } : null;
+    return { points, operating, lengthUnit: us ? "ft" : "m", forceUnit: us ? "kip" : "kN" } as const;
   }, [outcome]);
 
   return (
@@ -280,7 +272,7 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
         {outcome?.result.ok ? (
           <>
             <ResultView result={outcome.result} units={outcome.units} />
-            {curve && curve.pts.length > 1 ? <CapacityChart {...curve} /> : null}
+            {curve && curve.points.length > 1 ? <CapacityChart {...curve} axis="Length" title="Capacity against length" /> : null}
           </>
         ) : (
           <p className="rounded-xl border-2 border-dashed border-ink/30 p-6 text-ink-soft">

@@ -1,5 +1,6 @@
 import { Icon } from "@/components/icons";
 import type { CalculationSuccess } from "@/lib/engineering";
+import { formatUtilisation } from "@/lib/client/format";
 import { fromN } from "@/lib/units";
 
 const BASIS_WORDS: Record<string, string> = {
@@ -33,7 +34,7 @@ export function ResultView({ result, units }: { result: CalculationSuccess; unit
           <div className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4">
             <p className="text-sm font-semibold text-ink-soft">Utilisation</p>
             <p className="tabular text-3xl font-bold" data-testid="utilisation">
-              {(result.utilisation * 100).toFixed(0)} %
+              {formatUtilisation(result.utilisation)}
             </p>
           </div>
         ) : null}

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { Forbidden } from "@/components/forbidden";
 import { Icon } from "@/components/icons";
+import { PrintButton } from "@/components/print-button";
 import { ButtonLink } from "@/components/ui/button";
 import { listInspectionRound, listRecentTriggers, listRoundFilters } from "@/db/queries/inspections";
 import { formatWhen } from "@/lib/alerts/format";
@@ -54,14 +55,17 @@ export default async function InspectionRoundPage({
   return (
     <div className="flex flex-col gap-4">
       <div>
-        <h1 className="text-2xl font-bold">Inspection round</h1>
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <h1 className="text-2xl font-bold">Inspection round</h1>
+          <PrintButton label="Print the round" />
+        </div>
         <p className="text-ink-soft">
           Every member is inspected at least every {site.inspectionIntervalDays} days, and again after any incident or adverse weather. Plumb tolerance on this site:{" "}
           {site.plumbToleranceMm} mm.
         </p>
       </div>
 
-      <form method="get" className="grid gap-2 rounded-xl border-2 border-ink/15 bg-paper-raised p-3 sm:grid-cols-[1fr_1fr_auto]" aria-label="Filter the round">
+      <form method="get" className="print:hidden grid gap-2 rounded-xl border-2 border-ink/15 bg-paper-raised p-3 sm:grid-cols-[1fr_1fr_auto]" aria-label="Filter the round">
         <label className="flex min-w-0 flex-col gap-1 text-sm font-semibold">
           Zone
           <select name="zone" defaultValue={zoneId ?? ""} className="min-h-touch w-full min-w-0 rounded-lg border-2 border-ink/40 bg-paper-raised px-2 text-base font-normal">
@@ -103,7 +107,7 @@ export default async function InspectionRoundPage({
           <h2 id="round-h" className="text-lg font-bold">
             {showAll ? `All members (${shown.length})` : `To inspect (${shown.length})`}
           </h2>
-          <Link href={`/sites/${site.id}/inspections${qs({ show: showAll ? null : "all" })}`} className="flex min-h-touch items-center text-brand underline">
+          <Link href={`/sites/${site.id}/inspections${qs({ show: showAll ? null : "all" })}`} className="flex min-h-touch items-center text-brand underline print:hidden">
             {showAll ? "Show only what needs inspecting" : `Show all, including ${counts.in_date} in date`}
           </Link>
         </div>
@@ -114,7 +118,7 @@ export default async function InspectionRoundPage({
         ) : (
           <ul className="flex flex-col gap-2">
             {shown.map((r) => (
-              <li key={r.memberId} className="flex flex-wrap items-center gap-3 rounded-xl border-2 border-ink/15 bg-paper-raised p-3" data-testid="round-item" data-tag={r.tag}>
+              <li key={r.memberId} className="flex flex-wrap items-center gap-3 rounded-xl border-2 border-ink/15 bg-paper-raised p-3 print:flex-nowrap print:break-inside-avoid print:rounded-none print:border-0 print:border-b print:p-1" data-testid="round-item" data-tag={r.tag}>
                 <div className="min-w-0 flex-1">
                   <p className="flex flex-wrap items-center gap-2">
                     <span className="text-lg font-bold">{r.tag}</span>
@@ -133,9 +137,13 @@ export default async function InspectionRoundPage({
                           : `${r.due.state === "overdue" ? "Was due" : "Due"} ${formatWhen(r.due.dueAt!, tz)} · last passed ${formatWhen(r.lastInspectedAt!, tz)}`}
                   </p>
                 </div>
-                <ButtonLink href={`/sites/${site.id}/members/${r.memberId}/inspect`} variant={NEEDS_DOING.includes(r.due.state) ? "primary" : "secondary"} aria-label={`Inspect ${r.tag}`}>
+                <ButtonLink href={`/sites/${site.id}/members/${r.memberId}/inspect`} variant={NEEDS_DOING.includes(r.due.state) ? "primary" : "secondary"} aria-label={`Inspect ${r.tag}`} className="print:hidden">
                   <Icon name="inspect" className="h-5 w-5" /> Inspect
                 </ButtonLink>
+                {/* On paper: room to tick the member off on the round. */}
+                <span aria-hidden className="hidden shrink-0 text-sm print:inline">
+                  Satisfactory ☐ &nbsp; Failed ☐ &nbsp; Initials ________
+                </span>
               </li>
             ))}
           </ul>
@@ -143,7 +151,7 @@ export default async function InspectionRoundPage({
       </section>
 
       {may("triggerInspections") ? (
-        <section aria-labelledby="trigger-h" className="flex flex-col gap-2 rounded-xl border-2 border-warn/60 bg-warn-soft p-3">
+        <section aria-labelledby="trigger-h" className="print:hidden flex flex-col gap-2 rounded-xl border-2 border-warn/60 bg-warn-soft p-3">
           <h2 id="trigger-h" className="text-lg font-bold">
             After an incident or adverse weather
           </h2>

@@ -3,10 +3,11 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useForm, type Path } from "react-hook-form";
+import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Icon } from "@/components/icons";
-import { apiJson } from "@/components/register/api";
+import { useServerErrors } from "@/components/use-server-errors";
+import { apiJson } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { inspectionTriggerSchema, type InspectionTriggerInput } from "@/lib/validations/inspection";
@@ -21,13 +22,14 @@ export function TriggerForm({ siteId, zones }: { siteId: string; zones: { id: st
     resolver: zodResolver(inspectionTriggerSchema),
     defaultValues: { zoneId: null, reason: "" },
   });
+  const placeErrors = useServerErrors(setError);
 
   async function onSubmit(v: InspectionTriggerInput) {
     setFormError(null);
     const r = await apiJson<{ trigger: { zoneName: string | null } }>(`/api/v1/sites/${siteId}/inspection-triggers`, { body: { zoneId: v.zoneId || null, reason: v.reason } });
     if (!r.ok) {
-      for (const [k, m] of Object.entries(r.error.fields)) k === "_" ? setFormError(m) : setError(k as Path<FormIn>, { message: m });
-      if (!Object.keys(r.error.fields).length) setFormError(r.error.message);
+      const { unplaced } = placeErrors(r.error);
+      if (unplaced.length) setFormError(unplaced.join(" "));
       return;
     }
     setDone(`Inspections are now due in ${r.data.trigger.zoneName ?? "the whole site"}.`);

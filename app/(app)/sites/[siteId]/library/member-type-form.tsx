@@ -6,7 +6,8 @@ import { useCallback, useState } from "react";
 import { useFieldArray, useForm, type Resolver } from "react-hook-form";
 import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { Icon } from "@/components/icons";
-import { apiJson } from "@/components/register/api";
+import { useServerErrors } from "@/components/use-server-errors";
+import { apiJson } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
 import {
@@ -116,6 +117,7 @@ export function MemberTypeForm({ siteId, existing, usedBy = 0 }: { siteId: strin
     return { values: {}, errors: errorsOf(all) as never };
   }, [existing?.kind]);
   const { register, control, handleSubmit, watch, setError, formState, setValue } = useForm<Values>({ defaultValues: initialValues(existing), resolver });
+  const placeErrors = useServerErrors(setError, { fieldOf: fieldFor });
   const { fields, append, remove, replace } = useFieldArray({ control, name: "rows" });
   const [csv, setCsv] = useState("");
   const [csvErrors, setCsvErrors] = useState<string[]>([]);
@@ -150,7 +152,7 @@ export function MemberTypeForm({ siteId, existing, usedBy = 0 }: { siteId: strin
       ? await apiJson<{ recheckedMembers: number }>(`/api/v1/sites/${siteId}/member-types/${existing.id}`, { method: "PATCH", body: payload })
       : await apiJson<{ memberType: { id: string } }>(`/api/v1/sites/${siteId}/member-types`, { body: payload });
     if (!r.ok) {
-      for (const [k, m] of Object.entries(r.error.fields)) setError(fieldFor(k) as keyof Values, { type: "server", message: m });
+      placeErrors(r.error);
       setMessage({ ok: false, text: Object.keys(r.error.fields).length ? "Some values need attention; nothing was saved." : r.error.message });
       return;
     }

@@ -21,6 +21,7 @@ export default async function RegisterPage({ params }: { params: Promise<{ siteI
           options={options}
           canImport={may("importMembers")}
           canLog={may("logMember")}
+          canRequestPermit={may("requestPermit")}
         />
       </Suspense>
       <CautionNotice compact />

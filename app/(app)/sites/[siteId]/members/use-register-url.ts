@@ -1,10 +1,13 @@
 "use client";
-// The register's view lives in the address: filters, sort and page survive a reload and can be shared.
+// The register's view lives in the address: filters, sort, page and columns survive a reload and can be shared.
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useCallback, useEffect, useMemo, useRef } from "react";
 import { searchParamsToQuery } from "@/lib/validations/member-list";
 
 export type RegisterQuery = Record<string, string>;
+
+/** Keys of the view that the API does not read (the desk table's columns). */
+const VIEW_KEYS = ["cols"] as const;
 
 export function useRegisterUrl() {
   const sp = useSearchParams();
@@ -43,7 +46,7 @@ export function useRegisterUrl() {
 
   const clear = useCallback(() => {
     const keep = new URLSearchParams();
-    for (const k of ["sort", "dir", "limit"]) {
+    for (const k of ["sort", "dir", "limit", ...VIEW_KEYS]) {
       const v = sp.get(k);
       if (v) keep.set(k, v);
     }
@@ -52,7 +55,7 @@ export function useRegisterUrl() {
     router.replace(qs ? `${pathname}?${qs}` : pathname, { scroll: false });
   }, [sp, router, pathname]);
 
-  return { query, update, clear };
+  return { query, cols: sp.get("cols"), update, clear };
 }
 
 /** The query string of the filters (and sort), without paging: for export and label links. */

@@ -4,7 +4,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Icon } from "@/components/icons";
-import { apiJson, putWithProgress } from "@/components/register/api";
+import { apiJson, putWithProgress } from "@/lib/client/api";
 
 type Kind = "drawing" | "certificate";
 

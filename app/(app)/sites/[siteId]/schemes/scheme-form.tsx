@@ -4,7 +4,8 @@ import { useRouter } from "next/navigation";
 import { useCallback, useState } from "react";
 import { useForm, type Resolver } from "react-hook-form";
 import { Icon } from "@/components/icons";
-import { apiJson } from "@/components/register/api";
+import { useServerErrors } from "@/components/use-server-errors";
+import { apiJson } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { SCHEME_CATEGORIES, schemeSchema } from "@/lib/validations/scheme";
@@ -24,6 +25,7 @@ const FIELD: Record<string, keyof Values> = {
   designLoadN: "designLoad", designSpacingXMm: "designSpacingX", designSpacingYMm: "designSpacingY", slabThicknessMm: "slabThickness",
   concreteDensityKnM3: "concreteDensity", formworkKnM2: "formwork", constructionKnM2: "construction",
 };
+const schemeFieldOf = (k: string): string => FIELD[k] ?? k;
 
 function toPayload(v: Values) {
   return {
@@ -55,6 +57,7 @@ export function SchemeForm({ siteId, existing, defaultDesigner = "" }: { siteId:
       validFrom: existing?.validFrom?.slice(0, 10) ?? "", validUntil: existing?.validUntil?.slice(0, 10) ?? "",
     },
   });
+  const placeErrors = useServerErrors(setError, { fieldOf: schemeFieldOf });
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const err = (k: keyof Values) => formState.errors[k]?.message;
   const input = (id: keyof Values, label: string, hint?: string, type = "text", mode: "decimal" | "text" = "decimal") => (
@@ -69,7 +72,7 @@ export function SchemeForm({ siteId, existing, defaultDesigner = "" }: { siteId:
       ? await apiJson<{ scheme: { id: string } }>(`/api/v1/sites/${siteId}/schemes/${existing.id}`, { method: "PATCH", body: toPayload(values) })
       : await apiJson<{ scheme: { id: string } }>(`/api/v1/sites/${siteId}/schemes`, { body: toPayload(values) });
     if (!r.ok) {
-      for (const [k, m] of Object.entries(r.error.fields)) setError(FIELD[k] ?? (k as keyof Values), { type: "server", message: m });
+      placeErrors(r.error);
       setMessage({ ok: false, text: Object.keys(r.error.fields).length ? "Some values need attention; nothing was saved." : r.error.message });
       return;
     }

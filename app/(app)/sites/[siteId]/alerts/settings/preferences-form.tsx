@@ -2,7 +2,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Icon } from "@/components/icons";
-import { apiJson } from "@/components/register/api";
+import { apiJson } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { DELIVERIES, DELIVERY_LABELS, type AlertKind, type Delivery } from "@/lib/alerts/kinds";
 

@@ -4,13 +4,16 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Icon } from "@/components/icons";
-import { apiJson } from "@/components/register/api";
+import { useServerErrors } from "@/components/use-server-errors";
+import { apiJson } from "@/lib/client/api";
 import { CheckResult, type CheckSummary } from "@/components/register/check-result";
 import { MemberFields, type SchemeOption, type TypeOption, type ZoneOption } from "@/components/register/member-fields";
 import { EMPTY_MEMBER_FORM, FIELD_OF, forceText, lengthText, toMemberInput, type MemberFormValues, type UnitSystem } from "@/components/register/member-form-values";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
+
+const editFieldOf = (k: string): string => FIELD_OF[k] ?? k;
 
 type EditValues = MemberFormValues & { status: string };
 
@@ -44,6 +47,7 @@ export function MemberEditForm({
     status: member.status,
   };
   const { register, handleSubmit, watch, setError, formState } = useForm<EditValues>({ defaultValues: initial });
+  const placeErrors = useServerErrors(setError, { fieldOf: editFieldOf });
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [result, setResult] = useState<{ check: CheckSummary; loadN: number } | null>(null);
   const statusError = formState.errors.status?.message;
@@ -76,7 +80,7 @@ export function MemberEditForm({
     }
     const r = await apiJson<{ member: { loadN: number }; check: CheckSummary | null }>(`/api/v1/members/${memberId}`, { method: "PATCH", body: patch });
     if (!r.ok) {
-      for (const [k, m] of Object.entries(r.error.fields)) setError((FIELD_OF[k] ?? k) as keyof EditValues, { type: "server", message: m });
+      placeErrors(r.error);
       setMessage({ ok: false, text: Object.keys(r.error.fields).length ? "Some values need attention; nothing was changed." : r.error.message });
       return;
     }

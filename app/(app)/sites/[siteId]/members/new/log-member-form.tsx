@@ -5,7 +5,9 @@ import Link from "next/link";
 import { useCallback, useEffect, useRef, useState } from "react";
 import { useForm, type Resolver } from "react-hook-form";
 import { Icon } from "@/components/icons";
-import { apiJson } from "@/components/register/api";
+import { useLocalDraft } from "@/components/use-local-draft";
+import { useServerErrors } from "@/components/use-server-errors";
+import { apiJson } from "@/lib/client/api";
 import { CheckResult, type CheckSummary } from "@/components/register/check-result";
 import { MemberFields, type SchemeOption, type TypeOption, type ZoneOption } from "@/components/register/member-fields";
 import { EMPTY_MEMBER_FORM, FIELD_OF, toMemberInput, type MemberFormValues, type UnitSystem } from "@/components/register/member-form-values";
@@ -20,16 +22,9 @@ function draftKey(siteId: string) {
   return `strutwise:log-member:${siteId}`;
 }
 
-function readDraft(siteId: string): Draft | null {
-  try {
-    const raw = window.localStorage.getItem(draftKey(siteId));
-    if (!raw) return null;
-    const d = JSON.parse(raw) as Draft;
-    return d && typeof d === "object" && d.values ? d : null;
-  } catch {
-    return null;
-  }
-}
+const asDraft = (raw: unknown): Draft | null => (raw && typeof raw === "object" && (raw as Draft).values ? (raw as Draft) : null);
+const isFormField = (k: string) => k in EMPTY_MEMBER_FORM;
+const formFieldOf = (k: string): string => FIELD_OF[k] ?? k;
 
 export function LogMemberForm({
   siteId, unitSystem, prefillTag, zones, schemes, types,
@@ -57,7 +52,6 @@ export function LogMemberForm({
   });
   const [photos, setPhotos] = useState<UploadedPhoto[]>([]);
   const [uploading, setUploading] = useState(false);
-  const [loaded, setLoaded] = useState(false);
   const [restored, setRestored] = useState<string | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState<Saved | null>(null);
@@ -67,24 +61,21 @@ export function LogMemberForm({
   const resultRef = useRef<HTMLHeadingElement>(null);
 
   // Restore a draft left by a reload, a lost connection or a flat battery.
-  useEffect(() => {
-    const d = readDraft(siteId);
-    if (d) {
+  const draft = useLocalDraft<Draft>(
+    draftKey(siteId),
+    (d) => {
       reset({ ...EMPTY_MEMBER_FORM, ...d.values, tag: d.values.tag || prefillTag });
       setPhotos(d.photos ?? []);
       setRestored(d.savedAt);
-    }
-    setLoaded(true);
-  }, [siteId, prefillTag, reset]);
+    },
+    asDraft,
+  );
+  const { ready: loaded, save: storeDraft } = draft;
+  const placeErrors = useServerErrors(setError, { fieldOf: formFieldOf, isField: isFormField });
 
   const saveDraft = useCallback(() => {
-    try {
-      const draft: Draft = { values: getValues(), photos: photosRef.current, savedAt: new Date().toISOString() };
-      window.localStorage.setItem(draftKey(siteId), JSON.stringify(draft));
-    } catch {
-      /* storage full or blocked: the form itself still holds the values */
-    }
-  }, [getValues, siteId]);
+    storeDraft({ values: getValues(), photos: photosRef.current, savedAt: new Date().toISOString() });
+  }, [getValues, storeDraft]);
 
   useEffect(() => {
     if (!loaded) return;
@@ -103,7 +94,7 @@ export function LogMemberForm({
   );
 
   function discardDraft() {
-    window.localStorage.removeItem(draftKey(siteId));
+    draft.clear();
     reset({ ...EMPTY_MEMBER_FORM, tag: prefillTag });
     setPhotos([]);
     setUploaderKey((k) => k + 1);
@@ -118,21 +109,13 @@ export function LogMemberForm({
       body: { ...input, photoIds: photos.map((p) => p.photoId), submit: values.submit },
     });
     if (!r.ok) {
-      const fields = Object.entries(r.error.fields);
-      let first: keyof MemberFormValues | null = null;
-      for (const [k, message] of fields) {
-        const key = (FIELD_OF[k] ?? k) as keyof MemberFormValues;
-        if (key in EMPTY_MEMBER_FORM) {
-          setError(key, { type: "server", message });
-          first ??= key;
-        }
-      }
-      const other = fields.filter(([k]) => !((FIELD_OF[k] ?? k) in EMPTY_MEMBER_FORM)).map(([, m]) => m);
-      setFormError(other.length ? other.join(" ") : fields.length ? "Some values need attention; see the fields marked below. Nothing was saved yet." : r.error.message);
+      const { placed, unplaced } = placeErrors(r.error);
+      const first = placed[0] as keyof MemberFormValues | undefined;
+      setFormError(unplaced.length ? unplaced.join(" ") : "Some values need attention; see the fields marked below. Nothing was saved yet.");
       if (first && first !== "submit") setFocus(first);
       return;
     }
-    window.localStorage.removeItem(draftKey(siteId));
+    draft.clear();
     setRestored(null);
     setSaved(r.data);
     requestAnimationFrame(() => resultRef.current?.focus());

@@ -6,7 +6,7 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
 import { Icon } from "@/components/icons";
-import { apiJson } from "@/components/register/api";
+import { apiJson } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { Field, describedBy, inputClass } from "@/components/ui/field";
 import { permitReasonSchema } from "@/lib/validations/permit";

@@ -4,7 +4,8 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Icon } from "@/components/icons";
-import { apiJson } from "@/components/register/api";
+import { useServerErrors } from "@/components/use-server-errors";
+import { apiJson } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { Field, describedBy, inputClass } from "@/components/ui/field";
 import { delegationSchema } from "@/lib/validations/permit";
@@ -15,6 +16,7 @@ export function DelegationForm({ siteId, supervisors, zones }: { siteId: string;
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
   const { register, handleSubmit, setError, reset, formState } = useForm<Values>({ defaultValues: { userId: "", zoneIds: [], validUntil: "" } });
+  const placeErrors = useServerErrors(setError);
   const e = formState.errors;
   const onSubmit = handleSubmit(async (v) => {
     setFormError(null);
@@ -27,7 +29,7 @@ export function DelegationForm({ siteId, supervisors, zones }: { siteId: string;
     const r = await apiJson(`/api/v1/sites/${siteId}/permit-delegations`, { body });
     if (!r.ok) {
       setFormError(r.error.message);
-      for (const [k, message] of Object.entries(r.error.fields)) setError(k as keyof Values, { message });
+      placeErrors(r.error);
       return;
     }
     reset();

@@ -1,11 +1,13 @@
 "use client";
 // Requesting a permit on a phone: kind, scope, (for striking) the evidence, one main action.
 // What is typed stays on the phone until the server has the request.
-import { useRouter } from "next/navigation";
+import { useRouter, useSearchParams } from "next/navigation";
 import { useCallback, useEffect, useMemo, useState } from "react";
 import { get, useFieldArray, useForm, type Resolver } from "react-hook-form";
 import { Icon } from "@/components/icons";
-import { apiJson } from "@/components/register/api";
+import { useLocalDraft } from "@/components/use-local-draft";
+import { useServerErrors } from "@/components/use-server-errors";
+import { apiJson } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { Field, describedBy, inputClass } from "@/components/ui/field";
 import { PERMIT_KIND_LABELS, permitRequestSchema, type PermitRequestInput } from "@/lib/validations/permit";
@@ -122,34 +124,45 @@ export function RequestForm({ siteId, candidates, schemes, zones }: { siteId: st
     }
     return { values: {}, errors: nested as never };
   }, []);
-  const { register, handleSubmit, watch, reset, setError, setValue, control, formState } = useForm<FormValues>({ defaultValues: EMPTY, resolver });
+  const { register, handleSubmit, watch, reset, setError, setValue, getValues, control, formState } = useForm<FormValues>({ defaultValues: EMPTY, resolver });
   const results = useFieldArray({ control, name: "results" });
   const [formError, setFormError] = useState<string | null>(null);
   const [restored, setRestored] = useState(false);
-  const [ready, setReady] = useState(false);
+  const [prefillNote, setPrefillNote] = useState<string | null>(null);
+  const prefillIds = useSearchParams().get("memberIds");
+  const placeErrors = useServerErrors(setError, { fieldOf });
   const [filter, setFilter] = useState("");
   const v = watch();
   const err = (name: string): string | undefined => (get(formState.errors, name) as { message?: string } | undefined)?.message;
 
+  const draft = useLocalDraft<Partial<FormValues>>(draftKey(siteId), (d) => {
+    reset({ ...EMPTY, ...d });
+    setRestored(true);
+  });
+  const { ready, save: saveDraft } = draft;
+
+  // Members chosen in the register (?memberIds=a,b): chosen here, for the kind of permit they can all be in.
   useEffect(() => {
-    try {
-      const raw = window.localStorage.getItem(draftKey(siteId));
-      if (raw) {
-        const d = JSON.parse(raw) as Partial<FormValues>;
-        reset({ ...EMPTY, ...d });
-        setRestored(true);
-      }
-    } catch {
-      /* an unreadable draft is ignored */
-    }
-    setReady(true);
-  }, [siteId, reset]);
+    if (!ready || !prefillIds) return;
+    const wanted = new Set(prefillIds.split(","));
+    const chosen = candidates.filter((c) => wanted.has(c.id));
+    if (!chosen.length) return;
+    const kind = chosen.some((c) => c.status === "draft") || !chosen.every((c) => ["loaded", "out_of_service"].includes(c.status)) ? "load" : "strike";
+    const fits = (c: Candidate) => (kind === "load" ? ["draft", "submitted"].includes(c.status) && !c.blockedForLoad : !c.blockedForStrike);
+    const left = chosen.filter((c) => !fits(c));
+    reset({ ...getValues(), kind, scope: "members", memberIds: chosen.filter(fits).map((c) => c.id) });
+    setPrefillNote(
+      `${chosen.length - left.length} of the ${chosen.length} members chosen in the register ${chosen.length - left.length === 1 ? "is" : "are"} in this request.` +
+        (left.length ? ` Left out: ${left.map((c) => `${c.tag} (${(kind === "load" ? c.blockedForLoad : c.blockedForStrike) ?? "cannot be in this kind of permit"})`).join(", ")}.` : ""),
+    );
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- once, when the form opens
+  }, [ready]);
 
   useEffect(() => {
     if (!ready) return;
-    const sub = watch((values) => window.localStorage.setItem(draftKey(siteId), JSON.stringify(values)));
+    const sub = watch((values) => saveDraft(values as Partial<FormValues>));
     return () => sub.unsubscribe();
-  }, [ready, siteId, watch]);
+  }, [ready, saveDraft, watch]);
 
   const blockedFor = (c: Candidate) => (v.kind === "load" ? c.blockedForLoad : c.blockedForStrike);
   const shown = useMemo(() => {
@@ -185,10 +198,10 @@ export function RequestForm({ siteId, candidates, schemes, zones }: { siteId: st
     const r = await apiJson<{ permit: { id: string } }>(`/api/v1/sites/${siteId}/permits`, { body: toInput(values) });
     if (!r.ok) {
       setFormError(r.error.message);
-      for (const [k, message] of Object.entries(r.error.fields)) setError(fieldOf(k) as never, { type: "server", message });
+      placeErrors(r.error);
       return;
     }
-    window.localStorage.removeItem(draftKey(siteId));
+    draft.clear();
     router.push(`/sites/${siteId}/permits/${r.data.permit.id}`);
   });
 
@@ -205,12 +218,18 @@ export function RequestForm({ siteId, candidates, schemes, zones }: { siteId: st
             className="font-semibold underline"
             onClick={() => {
               reset(EMPTY);
-              window.localStorage.removeItem(draftKey(siteId));
+              draft.clear();
               setRestored(false);
             }}
           >
             Start again
           </button>
+        </p>
+      ) : null}
+
+      {prefillNote ? (
+        <p role="status" className="rounded-lg border-2 border-brand bg-brand-soft p-3 text-sm" data-testid="prefill-note">
+          {prefillNote}
         </p>
       ) : null}
 

@@ -4,16 +4,21 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useEffect, useRef, useState } from "react";
-import { useForm, type Path } from "react-hook-form";
+import { useEffect, useState } from "react";
+import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Icon } from "@/components/icons";
-import { apiJson } from "@/components/register/api";
+import { useLocalDraft } from "@/components/use-local-draft";
+import { useServerErrors } from "@/components/use-server-errors";
+import { apiJson } from "@/lib/client/api";
 import { PhotoUploader, type UploadedPhoto } from "@/components/register/photo-uploader";
 import { Button, ButtonLink } from "@/components/ui/button";
 import { describedBy } from "@/components/ui/field";
 import { INSPECTION_CHECKS } from "@/lib/inspections/checklist";
 import { inspectionSchema, type InspectionInput } from "@/lib/validations/inspection";
+
+/** Photo problems are said above the form, beside the uploader, not on a field. */
+const inspectFieldOf = (k: string): string => (k === "photoIds" ? "_" : k);
 
 type FormIn = z.input<typeof inspectionSchema>;
 type Draft = { values: FormIn; photos: UploadedPhoto[] };
@@ -43,34 +48,21 @@ export function InspectForm({
   } = useForm<FormIn, unknown, InspectionInput>({ resolver: zodResolver(inspectionSchema), defaultValues: emptyValues() });
 
   // Restore a draft typed earlier on this device.
-  const loaded = useRef(false);
-  useEffect(() => {
-    if (loaded.current) return;
-    loaded.current = true;
-    try {
-      const raw = localStorage.getItem(draftKey);
-      if (raw) {
-        const d = JSON.parse(raw) as Draft;
-        reset(d.values);
-        setPhotos(d.photos ?? []);
-        setUploaderKey((k) => k + 1);
-        setRestored(true);
-      }
-    } catch {
-      /* a broken draft is ignored */
-    }
-  }, [draftKey, reset]);
+  const draft = useLocalDraft<Draft>(draftKey, (d) => {
+    reset(d.values);
+    setPhotos(d.photos ?? []);
+    setUploaderKey((k) => k + 1);
+    setRestored(true);
+  });
+  const { ready: loaded, save: saveDraft } = draft;
+  const placeErrors = useServerErrors(setError, { fieldOf: inspectFieldOf });
 
   const values = watch();
   useEffect(() => {
-    if (!loaded.current || saved) return;
+    if (!loaded || saved) return;
     const touched = values.result || values.notes || photos.length || (values.items ?? []).some((i) => i.result || i.note);
-    try {
-      if (touched) localStorage.setItem(draftKey, JSON.stringify({ values, photos } satisfies Draft));
-    } catch {
-      /* storage full or blocked: the form still works */
-    }
-  }, [values, photos, draftKey, saved]);
+    if (touched) saveDraft({ values, photos });
+  }, [values, photos, loaded, saveDraft, saved]);
 
   const anyFailed = (values.items ?? []).some((i) => i.result === "fail");
   useEffect(() => {
@@ -84,18 +76,11 @@ export function InspectForm({
       { body: { ...input, photoIds: photos.map((p) => p.photoId) } },
     );
     if (!r.ok) {
-      for (const [field, message] of Object.entries(r.error.fields)) {
-        if (field === "_" || field === "photoIds") setFormError(message);
-        else setError(field as Path<FormIn>, { message });
-      }
-      if (!Object.keys(r.error.fields).length) setFormError(r.error.message);
+      const { unplaced } = placeErrors(r.error);
+      if (unplaced.length) setFormError(unplaced.join(" "));
       return;
     }
-    try {
-      localStorage.removeItem(draftKey);
-    } catch {
-      /* ignore */
-    }
+    draft.clear();
     setSaved({ result: input.result, memberStatus: r.data.member.status, removedFromPermits: r.data.removedFromPermits, nextDueAt: r.data.inspection.nextDueAt });
     router.refresh();
   }
