@@ -150,7 +150,8 @@ export type UserContext<I, Q> = { req: Request; params: Record<string, string>; 
 
 /**
  * A route that needs a signed-in person but no site (the person's own account, their sites).
- * With `permission`, the person must hold a role allowing it on at least one of their sites
+ * With `permission`, the person must hold a role allowing it on at least one of their sites (an
+ * organisation admin counts as admin everywhere, even before the organisation has a site)
  * (e.g. `calculate` for the site-less calculator): someone with no role anywhere gets 403.
  */
 export function userRoute<B extends Parser | undefined = undefined, Q extends Parser | undefined = undefined>(
@@ -162,8 +163,13 @@ export function userRoute<B extends Parser | undefined = undefined, Q extends Pa
     const user = await requireApiUser();
     if (spec.permission) {
       const permission = spec.permission;
-      const sites = await listUserSites({ user });
-      if (!sites.some((s) => rolesAllowPure(s.roles as SiteRole[], permission))) throw new ForbiddenError(spec.forbidden);
+      // An organisation admin holds the admin role on every site of the organisation, including
+      // the sites not made yet: a new organisation's first admin must be able to add its first site.
+      const orgAdminAllowed = user.isOrgAdmin && rolesAllowPure(["admin"], permission);
+      if (!orgAdminAllowed) {
+        const sites = await listUserSites({ user });
+        if (!sites.some((s) => rolesAllowPure(s.roles as SiteRole[], permission))) throw new ForbiddenError(spec.forbidden);
+      }
     }
     const query = (spec.query ? runParser(spec.query, readQuery(req)) : undefined) as Parsed<Q>;
     const input = (await readBody(req, spec.body, bodyMode)) as Parsed<B>;

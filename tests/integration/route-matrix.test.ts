@@ -12,6 +12,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "@/db";
 import type { RouteMeta } from "@/lib/api/route";
 import { rolesAllowPure } from "@/lib/permissions";
+import { putObject } from "@/lib/storage";
 import type { SiteRole } from "@/db/schema";
 import { anonymous, signInAs, type Client } from "../support/http";
 
@@ -61,7 +62,7 @@ const clients = new Map<string, Client>();
 /** Roles per demo user: on the fixture site, and on any of their sites (for site-less routes). */
 const siteRoles = new Map<string, SiteRole[]>();
 const anyRoles = new Map<string, SiteRole[]>();
-const created: { alertId?: string; delegationId?: string; invitationId?: string } = {};
+const created: { alertId?: string; delegationId?: string; invitationId?: string; pdfKeyOf?: string } = {};
 
 function fill(url: string): string {
   return url.replace(/\[([^\]]+)\]/g, (_, name: string) => {
@@ -117,8 +118,15 @@ beforeAll(async () => {
   fx.schemeId = member!.scheme_id;
   const [photo] = await sql<{ id: string }[]>`select id from photos where site_id = ${site!.id} order by created_at limit 1`;
   fx.photoId = photo!.id;
-  const [permit] = await sql<{ id: string }[]>`select id from permits where site_id = ${site!.id} order by created_at limit 1`;
+  const [permit] = await sql<{ id: string; pdf_key: string | null }[]>`select id, pdf_key from permits where site_id = ${site!.id} order by created_at limit 1`;
   fx.permitId = permit!.id;
+  // The PDF route serves a stored PDF (404 until one is rendered): give the fixture permit one.
+  if (!permit!.pdf_key) {
+    const key = `test/route-matrix/${permit!.id}.pdf`;
+    await putObject(key, "%PDF-1.4\n% route-matrix fixture\n", "application/pdf");
+    await sql`update permits set pdf_key = ${key} where id = ${permit!.id}`;
+    created.pdfKeyOf = permit!.id;
+  }
   // The demo seed has no alert and no issuing scope; make one of each (removed afterwards). The
   // scope is already revoked, so it gives nobody the right to issue while this file runs.
   const [users] = await sql<{ coordinator: string; supervisor: string }[]>`
@@ -163,6 +171,7 @@ afterAll(async () => {
   if (created.alertId) await sql`delete from alerts where id = ${created.alertId}`;
   if (created.delegationId) await sql`delete from permit_delegations where id = ${created.delegationId}`;
   if (created.invitationId) await sql`delete from invitations where id = ${created.invitationId}`;
+  if (created.pdfKeyOf) await sql`update permits set pdf_key = null where id = ${created.pdfKeyOf}`;
   await sql.end({ timeout: 5 });
 });
 
