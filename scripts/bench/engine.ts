@@ -156,7 +156,7 @@ export async function benchEngine(): Promise<BenchRow[]> {
   const calc = timeLoop(1500, (i) => {
     const r = calculate(reqs[i & 255]);
     if (r.ok) okCount++;
-    return r.ok ? r.capacityN : 0;
+    return r.ok ? (r.capacityN ?? 0) : 0;
   });
   sink += calc.sink;
   rows.push({ name: "engine calculate() with validation and steps (one core)", value: Math.round(calc.perSecond), unit: "calls/s" });

@@ -19,16 +19,18 @@ function fmtValue(v: number | string) {
 
 export function ResultView({ result, units }: { result: CalculationSuccess; units: "si" | "us" }) {
   const fu = units === "us" ? "kip" : "kN";
-  const cap = fromN(result.capacityN, fu);
+  const cap = result.capacityN !== undefined ? fromN(result.capacityN, fu) : undefined;
   return (
     <section aria-label="Result" className="flex flex-col gap-4">
       <div className="grid gap-3 sm:grid-cols-3">
-        <div className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4">
-          <p className="text-sm font-semibold text-ink-soft">{BASIS_WORDS[result.basis]}</p>
-          <p className="tabular text-3xl font-bold" data-testid="capacity">
-            {cap.toFixed(1)} {fu}
-          </p>
-        </div>
+        {cap !== undefined ? (
+          <div className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4">
+            <p className="text-sm font-semibold text-ink-soft">{BASIS_WORDS[result.basis]}</p>
+            <p className="tabular text-3xl font-bold" data-testid="capacity">
+              {cap.toFixed(1)} {fu}
+            </p>
+          </div>
+        ) : null}
         {result.utilisation !== undefined ? (
           <div className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4">
             <p className="text-sm font-semibold text-ink-soft">Utilisation</p>
