@@ -20,15 +20,19 @@ export const rhsSecondMoment = (b: number, h: number, t: number): number => {
   const hi = h - 2 * t;
   return (b * h * h * h - bi * hi * hi * hi) / 12;
 };
-/** Corner "spandrel" (an r × r square less a quarter circle of radius r): area, and distance of its centroid from the outer edges. */
-const spandrelArea = (r: number): number => r * r * (1 - PI / 4);
-const spandrelCentroid = (r: number): number => (r * (10 - 3 * PI)) / (12 - 3 * PI);
-/** Second moment of a spandrel about an axis through its centroid, parallel to one straight edge. */
-const spandrelOwnI = (r: number): number => {
-  const a = spandrelArea(r);
-  const c = spandrelCentroid(r);
-  return r * r * r * r * (1 - (5 * PI) / 16) - a * c * c;
-};
+/** Corner "spandrel" (an r × r square less a quarter circle of radius r): area r²(1 − π/4), centroid r(10 − 3π)/(12 − 3π) from the outer edges. */
+const SPANDREL_AREA = 1 - PI / 4;
+const SPANDREL_CENTROID = (10 - 3 * PI) / (12 - 3 * PI);
+/** Second moment of a spandrel about an axis through its centroid parallel to a straight edge: r⁴[(1 − 5π/16) − (1 − π/4)·c²]. */
+const SPANDREL_OWN_I = 1 - (5 * PI) / 16 - SPANDREL_AREA * SPANDREL_CENTROID * SPANDREL_CENTROID;
+
+/** Second moment of one spandrel of radius r about an axis at `edge` from its outer edges. */
+function spandrelI(r: number, edge: number): number {
+  if (r <= 0) return 0;
+  const r2 = r * r;
+  const d = edge - SPANDREL_CENTROID * r;
+  return SPANDREL_OWN_I * r2 * r2 + SPANDREL_AREA * r2 * d * d;
+}
 
 /**
  * Area of a rectangular hollow section with rounded corners, EN 10219-2 / EN 10210-2
@@ -42,14 +46,8 @@ export const rhsRoundedArea = (b: number, h: number, t: number, ro: number, ri: 
  * square-corner value less the four outer spandrels (radius r_o, edge at h/2) plus
  * the four inner ones (radius r_i, edge at h/2 − t), each by the parallel-axis rule.
  */
-export const rhsRoundedSecondMoment = (b: number, h: number, t: number, ro: number, ri: number): number => {
-  const corner = (r: number, edge: number) => {
-    if (r <= 0) return 0;
-    const d = edge - spandrelCentroid(r);
-    return spandrelOwnI(r) + spandrelArea(r) * d * d;
-  };
-  return rhsSecondMoment(b, h, t) - 4 * corner(ro, h / 2) + 4 * corner(ri, h / 2 - t);
-};
+export const rhsRoundedSecondMoment = (b: number, h: number, t: number, ro: number, ri: number): number =>
+  rhsSecondMoment(b, h, t) - 4 * spandrelI(ro, h / 2) + 4 * spandrelI(ri, h / 2 - t);
 
 /** How the corner radii of a hollow section are set when the user does not give them. */
 export type CornerRule = "cold-formed" | "hot-finished" | "aisc";
