@@ -213,3 +213,54 @@ describe("raking shore, axial force plus bending from self-weight", () => {
     expect(failure(calculate({ method: "raking-combined", lengthMm: 6000, angleDeg: 60, section: { shape: "given", areaMm2: 1000, iMinMm4: 1e6 }, fyMpa: 355, loadN: 1 })).errors[0].field).toBe("section.shape");
   });
 });
+
+describe("the new checks never throw or answer NaN, whatever arrives", () => {
+  const deepNumbers = (v: unknown, out: number[] = []): number[] => {
+    if (typeof v === "number") out.push(v);
+    else if (Array.isArray(v)) v.forEach((x) => deepNumbers(x, out));
+    else if (v && typeof v === "object") Object.values(v).forEach((x) => deepNumbers(x, out));
+    return out;
+  };
+  it("random requests for each new method", async () => {
+    const fc = (await import("fast-check")).default;
+    const num = fc.oneof(fc.double(), fc.double({ min: 0, max: 10000, noNaN: true }), fc.anything());
+    fc.assert(
+      fc.property(
+        fc.record(
+          {
+            method: fc.constantFrom("out-of-plumb", "base-bearing", "backprop-sequence", "raking-combined"),
+            lengthMm: num,
+            section: fc.oneof(fc.constant(chs114), fc.record({ shape: fc.constantFrom("chs", "rhs", "rect", "round"), dMm: num, tMm: num, bMm: num, hMm: num })),
+            fyMpa: num,
+            loadN: num,
+            outOfPlumbDeg: num,
+            outOfPlumbMm: num,
+            eccentricityMm: num,
+            propClass: fc.constantFrom("A", "D", "E", "Z"),
+            maxExtensionMm: num,
+            basePlateBMm: num,
+            basePlateLMm: num,
+            solePlateBMm: num,
+            solePlateLMm: num,
+            solePlateTMm: num,
+            allowablePressureKPa: num,
+            slabEffectiveDepthMm: num,
+            fckMpa: num,
+            shoredLevels: fc.oneof(fc.integer({ min: 0, max: 8 }), num),
+            slabSelfWeightKPa: num,
+            constructionKPa: num,
+            formworkKPa: num,
+            angleDeg: num,
+          },
+          { requiredKeys: ["method"] },
+        ),
+        (input) => {
+          const r = calculate(input);
+          if (r.ok) return deepNumbers(r).every(Number.isFinite);
+          return r.errors.length > 0 && r.errors.every((e) => typeof e.message === "string" && e.message.length > 10);
+        },
+      ),
+      { numRuns: 1500 },
+    );
+  });
+});
