@@ -1,15 +1,29 @@
 // Turns the calculator form (SI or US units, as typed) into an engine request in N, mm, MPa,
 // and maps the engine's field errors (request paths) back onto the form's fields.
-import { parseLength, toMm, toMpa, toN } from "@/lib/units";
+import { parseLength, toKnPerM2, toMm, toMpa, toN } from "@/lib/units";
 import type { CalculatorForm } from "@/lib/validations/calculator";
 
-export type UnitLabels = { length: string; dim: string; force: string; stress: string; timberStress: string; area: string; inertia: string };
+export type UnitLabels = {
+  length: string;
+  dim: string;
+  force: string;
+  stress: string;
+  timberStress: string;
+  area: string;
+  inertia: string;
+  pressure: string;
+  concrete: string;
+  lineLoad: string;
+};
 
 export function unitLabels(units: "si" | "us"): UnitLabels {
   return units === "us"
-    ? { length: "ft-in", dim: "in", force: "kip", stress: "ksi", timberStress: "psi", area: "in²", inertia: "in⁴" }
-    : { length: "mm", dim: "mm", force: "kN", stress: "MPa", timberStress: "MPa", area: "mm²", inertia: "mm⁴" };
+    ? { length: "ft-in", dim: "in", force: "kip", stress: "ksi", timberStress: "psi", area: "in²", inertia: "in⁴", pressure: "psf", concrete: "psi", lineLoad: "lb/ft" }
+    : { length: "mm", dim: "mm", force: "kN", stress: "MPa", timberStress: "MPa", area: "mm²", inertia: "mm⁴", pressure: "kPa", concrete: "MPa", lineLoad: "N/m" };
 }
+
+/** Methods whose member is a steel section (the new combined checks included). */
+const STEEL_CHECKS = ["out-of-plumb", "raking-combined"];
 
 const numberOf = (s: string) => Number(s.replace(/,/g, ""));
 
@@ -27,11 +41,20 @@ export function formToRequest(f: CalculatorForm): Built {
     if (text.trim() !== "") r[key] = convert(text);
   };
 
-  const len = parseLength(f.length, us ? "in" : "mm");
-  if (len.ok) r.lengthMm = len.value;
-  else fieldErrors.length = len.message;
+  const pressure = (s: string) => (us ? toKnPerM2(numberOf(s), "psf") : numberOf(s));
+  const concrete = (s: string) => (us ? toMpa(numberOf(s), "psi") : numberOf(s));
+  // lb/ft → N/m: 1 lbf per 304.8 mm
+  const lineLoad = (s: string) => (us ? (toN(numberOf(s), "lbf") * 1000) / 304.8 : numberOf(s));
+  const plumbProp = f.method === "out-of-plumb" && f.plumbTarget === "prop";
 
-  const usesSection = !["en1065", "supplier-table"].includes(f.method);
+  const lengthless = f.method === "base-bearing" || f.method === "backprop-sequence";
+  if (!lengthless) {
+    const len = parseLength(f.length, us ? "in" : "mm");
+    if (len.ok) r.lengthMm = len.value;
+    else fieldErrors.length = len.message;
+  }
+
+  const usesSection = !["en1065", "supplier-table", "base-bearing", "backprop-sequence"].includes(f.method) && !plumbProp;
   if (usesSection) {
     if (f.ends) r.ends = f.ends;
     set("k", f.k, numberOf);
@@ -47,14 +70,56 @@ export function formToRequest(f: CalculatorForm): Built {
       });
     // Empty dimensions become NaN so the engine names the missing field in its own words.
     for (const [k, v] of Object.entries(s)) if (typeof v === "number" && Number.isNaN(v)) delete s[k];
-    r.section = s;
+    // Point braces need no section: leave it out when none of its sizes were typed.
+    if (!(f.method === "point-brace" && Object.keys(s).length === 1)) r.section = s;
   }
   if (["euler", "en1993", "aisc360-lrfd", "aisc360-asd", "point-brace"].includes(f.method)) {
     set("eMpa", f.e, steelStress);
   }
-  if (["en1993", "aisc360-lrfd", "aisc360-asd"].includes(f.method)) {
+  if (["en1993", "aisc360-lrfd", "aisc360-asd"].includes(f.method) || (STEEL_CHECKS.includes(f.method) && !plumbProp)) {
     set("fyMpa", f.fy, steelStress);
     if (f.steelGrade && f.fy.trim() === "") r.steelGrade = f.steelGrade;
+    if (f.hssWeld && (f.method.startsWith("aisc") || f.checkCode === "aisc360")) r.hssWeld = f.hssWeld;
+  }
+  if (STEEL_CHECKS.includes(f.method)) {
+    if (!plumbProp) {
+      r.plumbCode = f.checkCode;
+      if (f.checkCode === "aisc360") r.designBasis = f.designBasis;
+      if (f.formed) r.formed = f.formed;
+    }
+    set("eccentricityMm", f.eccentricity, dim);
+  }
+  if (f.method === "out-of-plumb") {
+    set("outOfPlumbDeg", f.plumbDeg, numberOf);
+    set("outOfPlumbMm", f.plumbOffset, dim);
+    if (plumbProp) {
+      if (f.propClass) r.propClass = f.propClass;
+      set("maxExtensionMm", f.maxExtension, dim);
+      set("minExtensionMm", f.minExtension, dim);
+    }
+  }
+  if (f.method === "raking-combined") {
+    set("angleDeg", f.angle, numberOf);
+    set("selfWeightNPerM", f.selfWeight, lineLoad);
+  }
+  if (f.method === "base-bearing") {
+    set("basePlateBMm", f.basePlateB, dim);
+    set("basePlateLMm", f.basePlateL, dim);
+    set("solePlateBMm", f.solePlateB, dim);
+    set("solePlateLMm", f.solePlateL, dim);
+    set("solePlateTMm", f.solePlateT, dim);
+    set("allowablePressureKPa", f.allowablePressure, pressure);
+    if (f.soil) r.soil = f.soil;
+    set("slabEffectiveDepthMm", f.slabEffDepth, dim);
+    set("fckMpa", f.fck, concrete);
+    if (f.slabEffDepth.trim() !== "") r.punchingCode = f.punchingCode;
+  }
+  if (f.method === "backprop-sequence") {
+    set("shoredLevels", f.shoredLevels, numberOf);
+    set("slabSelfWeightKPa", f.slabSelfWeight, pressure);
+    set("formworkKPa", f.formworkLoad, pressure);
+    set("constructionKPa", f.constructionLoad, pressure);
+    set("cycles", f.cycles, numberOf);
   }
   if (f.method === "en1993") {
     if (f.curve) r.curve = f.curve;
@@ -81,6 +146,7 @@ export function formToRequest(f: CalculatorForm): Built {
     set("minExtensionMm", f.minExtension, dim);
   }
   if (f.method === "supplier-table") {
+    r.supplierInterpolation = f.supplierInterpolation;
     const rows: { lengthMm: number; safeLoadN: number }[] = [];
     const lines = f.table.split(/\r?\n/).map((l) => l.trim()).filter(Boolean);
     lines.forEach((line, i) => {
@@ -97,7 +163,7 @@ export function formToRequest(f: CalculatorForm): Built {
     set("braces", f.braces, numberOf);
     r.designBasis = f.designBasis;
   }
-  set("loadN", f.load, force);
+  if (f.method !== "backprop-sequence") set("loadN", f.load, force);
   return { request: r, fieldErrors };
 }
 
@@ -134,6 +200,30 @@ const PATH_TO_FIELD: Record<string, keyof CalculatorForm> = {
   braces: "braces",
   designBasis: "designBasis",
   loadN: "load",
+  hssWeld: "hssWeld",
+  outOfPlumbDeg: "plumbDeg",
+  outOfPlumbMm: "plumbOffset",
+  eccentricityMm: "eccentricity",
+  plumbCode: "checkCode",
+  angleDeg: "angle",
+  selfWeightNPerM: "selfWeight",
+  basePlateBMm: "basePlateB",
+  basePlateLMm: "basePlateL",
+  solePlateBMm: "solePlateB",
+  solePlateLMm: "solePlateL",
+  solePlateTMm: "solePlateT",
+  allowablePressureKPa: "allowablePressure",
+  soil: "soil",
+  slabEffectiveDepthMm: "slabEffDepth",
+  slabDepthMm: "slabEffDepth",
+  fckMpa: "fck",
+  punchingCode: "punchingCode",
+  shoredLevels: "shoredLevels",
+  slabSelfWeightKPa: "slabSelfWeight",
+  formworkKPa: "formworkLoad",
+  constructionKPa: "constructionLoad",
+  cycles: "cycles",
+  supplierInterpolation: "supplierInterpolation",
 };
 
 /** The form field an engine error belongs to, or null for the form as a whole. */

@@ -68,9 +68,31 @@ export function checkAiscSlenderElements(section: Section, fyMpa: number, eMpa: 
   return { errors: [], steps };
 }
 
+/** AISC 360-16 §B4.2: design wall thickness of HSS = 0.93 × nominal for ERW, nominal for SAW. */
+export const ERW_DESIGN_THICKNESS_FACTOR = 0.93;
+
+/** The hollow section with its AISC design wall thickness, and the working line that says so. */
+export function aiscDesignSection(req: CalculationRequest): { req: CalculationRequest; steps: Step[] } {
+  const s = req.section;
+  if (!s || (s.shape !== "chs" && s.shape !== "rhs")) return { req, steps: [] };
+  const saw = req.hssWeld === "saw";
+  const factor = saw ? 1 : ERW_DESIGN_THICKNESS_FACTOR;
+  const tDes = factor * s.tMm;
+  return {
+    req: { ...req, section: { ...s, tMm: tDes } },
+    steps: [
+      step("Nominal wall thickness", "t_nom", s.tMm, "mm", "User input"),
+      saw
+        ? step("Design wall thickness t_des = 1.0·t_nom (submerged-arc welded HSS)", "t_des", tDes, "mm", "AISC 360-16 §B4.2")
+        : step("Design wall thickness t_des = 0.93·t_nom (electric-resistance welded HSS; say hssWeld: saw for submerged-arc welded)", "t_des", tDes, "mm", "AISC 360-16 §B4.2"),
+    ],
+  };
+}
+
 export function runAisc360(req: CalculationRequest, designBasis: "lrfd" | "asd"): MethodOutcome {
   const label = designBasis === "lrfd" ? "AISC 360-16 LRFD strength" : "AISC 360-16 ASD strength";
-  const sec = requireSection(req, ["chs", "rhs", "rect", "round", "given"], label);
+  const design = aiscDesignSection(req);
+  const sec = requireSection(design.req, ["chs", "rhs", "rect", "round", "given"], label, "aisc");
   if (!sec.ok) {
     const errors = [...sec.errors];
     if (req.fyMpa === undefined && req.steelGrade === undefined) errors.push(fieldError("fyMpa", "Give the steel's yield strength Fy in MPa, or choose a steel grade."));
@@ -81,10 +103,11 @@ export function runAisc360(req: CalculationRequest, designBasis: "lrfd" | "asd")
   if (!fyRes.ok) return fyRes;
   const fy = fyRes.value.fyMpa;
   const e = req.eMpa ?? E_STEEL_AISC_MPA;
+  // Thickness limits for fy (EN grades) follow the nominal wall; the design thickness is used for A, I and b/t.
   const slender = checkAiscSlenderElements(sec.section, fy, e);
   if (slender.errors.length) return { ok: false, errors: slender.errors };
 
-  const eff = effectiveLength(req.lengthMm, req);
+  const eff = effectiveLength(req.lengthMm, req, "aisc");
   const lcr = eff.effectiveLengthMm;
   const lambda = lcr / props.rMinMm;
   const fe = aiscFe(e, lambda);
@@ -100,10 +123,14 @@ export function runAisc360(req: CalculationRequest, designBasis: "lrfd" | "asd")
   if (lambda > 200) {
     warnings.push(`Lc/r = ${fmt(lambda)} is over 200, the preferred limit in the AISC 360-16 §E2 user note for compression members.`);
   }
+  if (design.steps.length && req.hssWeld === undefined) {
+    warnings.push("The tube was taken as electric-resistance welded, so its design wall is 0.93 × the nominal thickness (AISC 360-16 §B4.2); say it is submerged-arc welded (hssWeld: saw) to use the full wall.");
+  }
   if (props.kind === "given") {
     warnings.push("Slender elements (AISC 360-16 Table B4.1a) cannot be checked from an area and I alone; this check assumes the section has none.");
   }
   const steps: Step[] = [
+    ...design.steps,
     ...props.steps,
     ...fyRes.value.steps,
     step(req.eMpa !== undefined ? "Modulus of elasticity (given by the user)" : "Modulus of elasticity, 29 000 ksi", "E", e, "MPa", req.eMpa !== undefined ? "User input" : "AISC 360-16 (E = 29 000 ksi, 200 000 MPa)"),

@@ -8,7 +8,11 @@ import { runEn1993 } from "./en1993";
 import { runEn1995 } from "./en1995";
 import { runEuler } from "./euler";
 import { runNds } from "./nds";
+import { runBackpropSequence } from "./backprop";
+import { runBaseBearing } from "./base-bearing";
+import { runOutOfPlumb } from "./out-of-plumb";
 import { runPointBrace } from "./point-brace";
+import { runRakingCombined } from "./raking-combined";
 import { isPlainObject, parseRequest } from "./request-schema";
 import { fmt } from "./steps";
 import { runSupplierTable } from "./supplier-table";
@@ -35,6 +39,14 @@ function dispatch(req: CalculationRequest): MethodOutcome {
       return runNds(req);
     case "point-brace":
       return runPointBrace(req);
+    case "out-of-plumb":
+      return runOutOfPlumb(req);
+    case "base-bearing":
+      return runBaseBearing(req);
+    case "backprop-sequence":
+      return runBackpropSequence(req);
+    case "raking-combined":
+      return runRakingCombined(req);
   }
 }
 
@@ -49,7 +61,13 @@ const NUMERIC_FIELDS = [
   "idealStiffnessNPerMm",
   "requiredStiffnessNPerMm",
   "requiredForceN",
+  "utilisation",
+  "maxSlabLoadRatio",
+  "maxPropLoadRatio",
 ] as const;
+
+/** Methods whose answer is not a force capacity: they may leave capacityN out. */
+const NO_CAPACITY_METHODS = new Set(["point-brace", "backprop-sequence"]);
 
 /** Runs a validated request. Exposed for the curve helper and the bench; use calculate() for anything from outside. */
 export function calculateParsed(req: CalculationRequest): CalculationResult {
@@ -61,7 +79,9 @@ export function calculateParsed(req: CalculationRequest): CalculationResult {
   const bad =
     NUMERIC_FIELDS.some((f) => v[f] !== undefined && !Number.isFinite(v[f])) ||
     v.steps.some((s) => typeof s.value === "number" && !Number.isFinite(s.value)) ||
-    !(v.capacityN > 0);
+    (v.checks ?? []).some((c) => !Number.isFinite(c.utilisation) || !Number.isFinite(c.demand) || !Number.isFinite(c.resistance)) ||
+    (v.stages ?? []).some((st) => [...st.slabLoadRatios, ...st.propLoadRatios].some((x) => !Number.isFinite(x))) ||
+    (v.capacityN === undefined ? !NO_CAPACITY_METHODS.has(req.method) : !(v.capacityN > 0));
   if (bad) {
     return {
       ok: false,
@@ -74,11 +94,14 @@ export function calculateParsed(req: CalculationRequest): CalculationResult {
     };
   }
   const warnings = [...v.warnings];
-  if (req.lengthMm < 100) {
+  if (req.lengthMm !== undefined && req.lengthMm < 100) {
     warnings.push(`The length is only ${fmt(req.lengthMm)} mm; check it was entered in millimetres, not metres.`);
   }
   const result: CalculationResult = { ok: true, method: req.method, engineVersion: ENGINE_VERSION, ...v, warnings };
-  if (req.loadN !== undefined) {
+  if (v.utilisation !== undefined) {
+    if (req.loadN !== undefined) result.loadN = req.loadN;
+    result.pass = v.utilisation <= 1;
+  } else if (req.loadN !== undefined && v.capacityN !== undefined) {
     const utilisation = req.loadN / v.capacityN;
     result.loadN = req.loadN;
     result.utilisation = utilisation;
@@ -126,7 +149,7 @@ export function capacityCurve(request: unknown, fromMm: number, toMm: number, po
     for (let i = 0; i < n; i++) {
       const lengthMm = lo + ((hi - lo) * i) / (n - 1);
       const r = calculateParsed({ ...base.value, lengthMm });
-      if (r.ok) {
+      if (r.ok && r.capacityN !== undefined) {
         const p: CurvePoint = { lengthMm, capacityN: r.capacityN };
         if (r.eulerN !== undefined) p.eulerN = r.eulerN;
         out.push(p);

@@ -2,7 +2,7 @@
 // steel yield strength from a grade or an explicit value.
 
 import { findSteelGrade, STEEL_GRADES } from "./materials";
-import { checkSectionGeometry, sectionProperties, type SectionProperties } from "./sections";
+import { checkSectionGeometry, sectionProperties, type CornerRule, type SectionProperties } from "./sections";
 import { fieldError, fmt, step } from "./steps";
 import type { CalculationRequest, FieldError, Section, Step } from "./types";
 
@@ -18,6 +18,7 @@ export function requireSection(
   req: CalculationRequest,
   allowed: readonly Section["shape"][],
   methodLabel: string,
+  cornerRule: CornerRule = "cold-formed",
 ): { ok: true; section: Section; props: SectionProperties } | { ok: false; errors: FieldError[] } {
   if (!req.section) {
     return {
@@ -43,7 +44,7 @@ export function requireSection(
   }
   const geometry = checkSectionGeometry(req.section);
   if (geometry.length) return { ok: false, errors: geometry };
-  return { ok: true, section: req.section, props: sectionProperties(req.section) };
+  return { ok: true, section: req.section, props: sectionProperties(req.section, cornerRule) };
 }
 
 export interface ResolvedFy {
@@ -90,6 +91,17 @@ export function resolveSteelFy(
   let fy = isRound && grade.fyRoundMpa !== undefined ? grade.fyRoundMpa : grade.fyMpa;
   let label = `Yield strength for ${grade.label}${isRound && grade.fyRoundMpa !== undefined ? " (round)" : ""}`;
   const t = props.thicknessMm;
+  const fromProduct = (req.fyFrom ?? "product-standard") === "product-standard" && grade.productBands !== undefined && t !== undefined;
+  if (fromProduct && grade.productBands && t !== undefined) {
+    const band = grade.productBands.find(([tMax]) => t <= tMax);
+    if (band) {
+      const steps = [
+        step(`Yield strength for ${grade.label}, nominal thickness ${fmt(t)} mm ≤ ${band[0]} mm, from the product standard (as UK and several other National Annexes to EN 1993-1-1 require)`, "f_y", band[1], "MPa", grade.productSource ?? grade.source),
+      ];
+      return { ok: true, value: { fyMpa: band[1], steps, warnings } };
+    }
+    warnings.push(`The section is ${fmt(t)} mm thick, beyond the product standard steps used here; confirm fy from the mill certificate.`);
+  }
   if (grade.tLimitMm !== undefined && grade.fyThickMpa !== undefined && t !== undefined && t > grade.tLimitMm) {
     fy = grade.fyThickMpa;
     label += `, thickness ${fmt(t)} mm > ${grade.tLimitMm} mm`;

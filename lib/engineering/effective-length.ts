@@ -12,7 +12,38 @@ export interface EndConditionInfo {
   designK: number;
 }
 
+/** Which code's table of recommended effective length factors a method follows. */
+export type KTable = "aisc" | "nds" | "en-steel" | "en-timber";
+
 const TABLE = "AISC 360-16 Commentary Table C-A-7.1";
+
+/**
+ * Recommended design factors by code. AISC and NDS print the same six cases and
+ * differ only in the last (pinned at one end, rotation fixed but free to sway at
+ * the other: AISC 2.0, NDS 2.4). Eurocodes 3 and 5 give no such table; UK
+ * practice for Eurocode work uses the nominal effective lengths of BS 5950-1
+ * Table 22 (steel) and BS 5268-2 Table 19 (timber), which are used here.
+ */
+export const K_TABLES: Record<KTable, { source: string; k: Record<EndCondition, number>; note?: string }> = {
+  aisc: {
+    source: TABLE,
+    k: { "fixed-fixed": 0.65, "fixed-pinned": 0.8, "fixed-sway": 1.2, "pinned-pinned": 1.0, "fixed-free": 2.1, "pinned-sway": 2.0 },
+  },
+  nds: {
+    source: "NDS 2018 Appendix G Table G1",
+    k: { "fixed-fixed": 0.65, "fixed-pinned": 0.8, "fixed-sway": 1.2, "pinned-pinned": 1.0, "fixed-free": 2.1, "pinned-sway": 2.4 },
+  },
+  "en-steel": {
+    source: "BS 5950-1:2000 Table 22 nominal effective lengths (UK practice with EN 1993-1-1; value to be confirmed against the table)",
+    k: { "fixed-fixed": 0.7, "fixed-pinned": 0.85, "fixed-sway": 1.2, "pinned-pinned": 1.0, "fixed-free": 2.0, "pinned-sway": 2.0 },
+    note: "pinned-sway is not in BS 5950-1 Table 22; the theoretical 2.0 is used.",
+  },
+  "en-timber": {
+    source: "BS 5268-2:2002 Table 19 effective lengths (UK practice with EN 1995-1-1; value to be confirmed against the table)",
+    k: { "fixed-fixed": 0.7, "fixed-pinned": 0.85, "fixed-sway": 1.5, "pinned-pinned": 1.0, "fixed-free": 2.0, "pinned-sway": 2.0 },
+    note: "pinned-sway is not in BS 5268-2 Table 19; the theoretical 2.0 is used.",
+  },
+};
 
 export const END_CONDITIONS: readonly EndConditionInfo[] = [
   { id: "fixed-fixed", label: "Both ends fixed (rotation and translation held)", theoreticalK: 0.5, designK: 0.65 },
@@ -42,14 +73,17 @@ export interface EffectiveLength {
  * struts and shores are normally idealised (end plates on packing are not
  * moment connections).
  */
-export function effectiveLength(lengthMm: number, opts: { k?: number; ends?: EndCondition }): EffectiveLength {
+export function effectiveLength(lengthMm: number, opts: { k?: number; ends?: EndCondition }, table: KTable = "aisc"): EffectiveLength {
   const steps: Step[] = [];
   const warnings: string[] = [];
   const ends = opts.ends ?? "pinned-pinned";
-  const info = endConditionInfo(ends);
+  const base = endConditionInfo(ends);
+  const t = K_TABLES[table];
+  const info = { ...base, designK: t.k[ends] };
+  const TABLE = t.source;
   steps.push(step("System length between restraints", "L", lengthMm, "mm", "User input"));
   steps.push(step(`End conditions: ${info.label}`, "—", ends, "", TABLE));
-  steps.push(step("Theoretical effective length factor", "K_theory", info.theoreticalK, "", TABLE));
+  steps.push(step("Theoretical effective length factor", "K_theory", info.theoreticalK, "", "Elastic stability (e.g. Timoshenko & Gere §2.3)"));
   steps.push(step("Recommended design effective length factor", "K_design", info.designK, "", TABLE));
   let k: number;
   if (opts.k !== undefined) {
@@ -57,7 +91,7 @@ export function effectiveLength(lengthMm: number, opts: { k?: number; ends?: End
     steps.push(step("Effective length factor used (given by the user)", "K", k, "", "User input"));
     if (opts.ends !== undefined && k < info.designK) {
       warnings.push(
-        `The effective length factor K = ${fmt(k)} you gave is lower than the recommended design value ${fmt(info.designK)} for ${ends} ends (AISC 360-16 Commentary Table C-A-7.1); make sure the end restraint really achieves it.`,
+        `The effective length factor K = ${fmt(k)} you gave is lower than the recommended design value ${fmt(info.designK)} for ${ends} ends (${TABLE}); make sure the end restraint really achieves it.`,
       );
     }
   } else {

@@ -3,18 +3,20 @@
 // extension actually used: classes A–C fall with the square of the extension,
 // classes D and E keep one value over their whole range.
 //
-// FROM MEMORY: the class formulas below (A 51, B 68, C 102 kN·m × l_max/l²;
-// D 34 kN; E 51 kN) and the combined factor 1.65 = γF 1.5 × γM 1.1 were
-// recalled from EN 1065:1998 Table 2 / clause 8 and EN 12812 rather than read
-// from the standard. Class B's 68·l_max/l² and class D's 34 kN match published
-// descriptions of the standard, and 34/1.65 ≈ 20 kN and 51/1.65 ≈ 30 kN match
-// commonly published permissible loads for classes D and E. Verify against a
-// copy of EN 1065 before release.
+// AWAITING CONFIRMATION: the class formulas below (A 51, B 68, C 102 kN·m ×
+// l_max/l²; D 34 kN; E 51 kN) and the combined factor 1.65 = γF 1.5 × γM 1.1
+// were recalled from EN 1065:1998 Table 2 / clause 8 and EN 12812 and could
+// not be re-read from the standard. Class B's 68·l_max/l² and class D's 34 kN
+// match published descriptions of the standard, and 34/1.65 ≈ 20 kN and
+// 51/1.65 ≈ 30 kN match commonly published permissible loads for classes D and
+// E. The working says "value to be confirmed against EN 1065 Table 2" until a
+// copy of the standard has been checked.
 
 import { fieldError, fmt, step } from "./steps";
 import type { CalculationRequest, FieldError, MethodOutcome, PropClass, Step } from "./types";
 
-export const EN1065_SOURCE = "EN 1065:1998 Table 2 (nominal characteristic strength, from memory)";
+export const EN1065_SOURCE = "EN 1065:1998 Table 2 (nominal characteristic strength; value to be confirmed against EN 1065 Table 2)";
+const FACTOR_SOURCE = "EN 1065 / EN 12812 (value to be confirmed against EN 1065 clause 8)";
 
 /** kN·m coefficient for classes A–C and kN constant for D–E. */
 export const EN1065_CLASS: Record<PropClass, { kind: "inverse-square"; coefficientKnM: number } | { kind: "constant"; kN: number }> = {
@@ -49,12 +51,10 @@ export function runEn1065(req: CalculationRequest): MethodOutcome {
   const lMax = req.maxExtensionMm;
   const l = req.lengthMm;
   const minGiven = req.minExtensionMm !== undefined;
-  // A two-tube telescopic prop cannot close to less than about half its full
-  // extension (the inner tube must stay inside the outer one), so half is a
-  // safe floor when the closed length is not known; it stops the 1/l² class
-  // curves from being read at lengths no such prop can have.
-  const lMin = req.minExtensionMm ?? lMax / 2;
-  if (minGiven && lMin >= lMax) {
+  // No minimum is invented: the prop's marked minimum (closed) extension is used when given,
+  // and asked for when it is not.
+  const lMin = req.minExtensionMm;
+  if (lMin !== undefined && lMin >= lMax) {
     return {
       ok: false,
       errors: [
@@ -76,17 +76,10 @@ export function runEn1065(req: CalculationRequest): MethodOutcome {
       ],
     };
   }
-  if (l < lMin) {
+  if (lMin !== undefined && l < lMin) {
     return {
       ok: false,
-      errors: [
-        fieldError(
-          "lengthMm",
-          minGiven
-            ? `Extension ${fmt(l)} mm is shorter than this prop's minimum (closed) length of ${fmt(lMin)} mm; choose a shorter prop.`
-            : `Extension ${fmt(l)} mm is shorter than half the maximum extension (${fmt(lMin)} mm), which a telescopic prop of this size cannot reach; give the prop's minimum extension (minExtensionMm) if it really closes that far.`,
-        ),
-      ],
+      errors: [fieldError("lengthMm", `Extension ${fmt(l)} mm is shorter than this prop's minimum (closed) length of ${fmt(lMin)} mm; choose a shorter prop.`)],
     };
   }
   const cls = req.propClass;
@@ -99,20 +92,24 @@ export function runEn1065(req: CalculationRequest): MethodOutcome {
   const steps: Step[] = [
     step("Prop class", "class", cls, "", "EN 1065:1998 §4"),
     step("Maximum extension", "l_max", lMax, "mm", "User input (prop marking)"),
-    step(minGiven ? "Minimum extension (given)" : "Minimum extension assumed as l_max/2 (two-tube telescopic prop)", "l_min", lMin, "mm", minGiven ? "User input" : "Prop geometry (common practice)"),
+    minGiven
+      ? step("Minimum extension (given)", "l_min", lMin as number, "mm", "User input (prop marking)")
+      : step("Minimum extension not given: the range below the extension is not checked", "l_min", "not given", "", "Prop marking needed"),
     step("Extension used", "l", l, "mm", "User input"),
     def.kind === "inverse-square"
       ? step(`Nominal characteristic strength R_k = ${def.coefficientKnM}·l_max/l² (kN, lengths in m)`, "R_k", rk, "N", EN1065_SOURCE)
       : step(`Nominal characteristic strength R_k = ${def.kN} kN at every extension`, "R_k", rk, "N", EN1065_SOURCE),
-    step(req.gammaF !== undefined ? "Load factor (given)" : "Load factor", "γF", gammaF, "", req.gammaF !== undefined ? "User input" : "EN 12812 / EN 1065 (from memory)"),
-    step(req.gammaM !== undefined ? "Resistance factor (given)" : "Resistance factor", "γM", gammaM, "", req.gammaM !== undefined ? "User input" : "EN 1065 (from memory)"),
-    step("Combined factor γF·γM", "γ", factor, "", "EN 1065 / EN 12812 (from memory)"),
-    step("Safe working load SWL = R_k/(γF·γM)", "SWL", swl, "N", "EN 1065 / EN 12812 (from memory)"),
+    step(req.gammaF !== undefined ? "Load factor (given)" : "Load factor", "γF", gammaF, "", req.gammaF !== undefined ? "User input" : FACTOR_SOURCE),
+    step(req.gammaM !== undefined ? "Resistance factor (given)" : "Resistance factor", "γM", gammaM, "", req.gammaM !== undefined ? "User input" : FACTOR_SOURCE),
+    step("Combined factor γF·γM", "γ", factor, "", FACTOR_SOURCE),
+    step("Safe working load SWL = R_k/(γF·γM)", "SWL", swl, "N", FACTOR_SOURCE),
   ];
   const warnings: string[] = [
     "EN 1065 class values assume the prop stands plumb, is loaded centrally through its end plates and is in good condition; a prop out of plumb, bent or with a substitute pin needs its own assessment.",
   ];
-  if (!minGiven) warnings.push(`No minimum extension was given; ${fmt(lMin)} mm (half the maximum) was assumed as the shortest usable length.`);
+  if (!minGiven) {
+    warnings.push("The prop's minimum (closed) extension was not given, so it is not checked that the prop can be set this short; give minExtensionMm from the prop's marking.");
+  }
   if (req.k !== undefined || req.ends !== undefined) {
     warnings.push("End conditions and k are not used: the EN 1065 class strength already assumes the prop's own end plates.");
   }

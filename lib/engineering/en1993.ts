@@ -120,7 +120,7 @@ export const SLENDERNESS_WARNING_LIMIT = 180;
 
 export function runEn1993(req: CalculationRequest): MethodOutcome {
   const errors: FieldError[] = [];
-  const sec = requireSection(req, ["chs", "rhs", "rect", "round", "given"], "EN 1993-1-1 buckling resistance");
+  const sec = requireSection(req, ["chs", "rhs", "rect", "round", "given"], "EN 1993-1-1 buckling resistance", req.formed === "hot-finished" ? "hot-finished" : "cold-formed");
   if (!sec.ok) errors.push(...sec.errors);
   const props: SectionProperties | undefined = sec.ok ? sec.props : undefined;
   const fyRes = props ? resolveSteelFy(req, props) : undefined;
@@ -135,7 +135,7 @@ export function runEn1993(req: CalculationRequest): MethodOutcome {
   const cls = checkEnClass(sec.section, fy);
   if (cls.errors.length) return { ok: false, errors: cls.errors };
 
-  const eff = effectiveLength(req.lengthMm, req);
+  const eff = effectiveLength(req.lengthMm, req, "en-steel");
   const e = req.eMpa ?? E_STEEL_EN_MPA;
   const gammaM1 = req.gammaM1 ?? 1.0;
   const a = props.areaMm2;

@@ -36,7 +36,8 @@ export function en1995Resistance(
   return en1995Kc(lambdaRel, betaC) * ((kmod * fc0kMpa) / gammaM) * areaMm2;
 }
 
-const DEFAULT_SERVICE_CLASS = 2;
+/** Props, rakers and trench timbers stand outdoors: service class 3 (EN 1995-1-1 §2.3.1.3) unless the user says otherwise. */
+const DEFAULT_SERVICE_CLASS = 3;
 const DEFAULT_DURATION = "medium-term";
 
 export function runEn1995(req: CalculationRequest): MethodOutcome {
@@ -69,7 +70,7 @@ export function runEn1995(req: CalculationRequest): MethodOutcome {
   const duration = req.loadDuration ?? DEFAULT_DURATION;
   const kmod = req.kmod ?? KMOD[serviceClass][duration];
 
-  const eff = effectiveLength(req.lengthMm, req);
+  const eff = effectiveLength(req.lengthMm, req, "en-timber");
   const lef = eff.effectiveLengthMm;
   const lambda = lef / props.rMinMm;
   const lambdaRel = en1995LambdaRel(lambda, fc0k, e005);
@@ -82,7 +83,7 @@ export function runEn1995(req: CalculationRequest): MethodOutcome {
   const warnings = [...eff.warnings];
   if (req.kmod === undefined && (req.serviceClass === undefined || req.loadDuration === undefined)) {
     warnings.push(
-      `kmod = ${fmt(kmod)} for service class ${serviceClass}, ${duration} load (EN 1995-1-1 Table 3.1) was assumed${req.serviceClass === undefined && req.loadDuration === undefined ? "; medium-term covers propping left in place from a week to six months (Table 2.1) and service class 2 covers covered work open to the air" : ""}. Give kmod, serviceClass or loadDuration if your case differs (timber exposed to the weather is service class 3).`,
+      `kmod = ${fmt(kmod)} for service class ${serviceClass}, ${duration} load (EN 1995-1-1 Table 3.1) was assumed${req.serviceClass === undefined && req.loadDuration === undefined ? "; medium-term covers propping left in place from a week to six months (Table 2.1) and service class 3 covers timber exposed to the weather, as props, rakers and trench timbers are" : ""}. Give kmod, serviceClass or loadDuration if your case differs (service class 2 for work under cover, EN 1995-1-1 §2.3.1.3).`,
     );
   }
   if (lambdaRel <= 0.3) {

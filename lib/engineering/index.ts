@@ -1,5 +1,5 @@
 export { calculate, capacityCurve, type CurvePoint } from "./calculate";
-export { METHODS, methodInfo, type MethodInfo } from "./methods";
+export { METHODS, CHECK_METHODS, methodInfo, type MethodInfo } from "./methods";
 export { ENGINE_VERSION } from "./version";
 export { END_CONDITIONS, effectiveLength, type EndConditionInfo } from "./effective-length";
 export {
@@ -22,6 +22,7 @@ export {
   calculateSlabLoad,
   slabLoadPerMember,
   workingAreaConstructionLoad,
+  falseworkWorkingAreaLoad,
   type SlabLoadBreakdown,
   type SlabLoadResult,
 } from "./slab-load";
@@ -34,4 +35,9 @@ export { interpolateTable } from "./supplier-table";
 export { en1995Kc, en1995LambdaRel, en1995Resistance } from "./en1995";
 export { ndsCp, ndsFcE, ndsCapacity } from "./nds";
 export { idealBraceCoefficient, app6RequiredStiffness } from "./point-brace";
+export { backpropSequence } from "./backprop";
+export { SOILS, en1992PunchingStress, en1992U1, aci318PunchingStress } from "./base-bearing";
+export { cornerRadii, rhsRoundedArea, rhsRoundedSecondMoment } from "./sections";
+export { interpolateTableInverseSquare } from "./supplier-table";
+export { K_TABLES } from "./effective-length";
 export * from "./types";

@@ -1,7 +1,7 @@
-// Material presets with the clause each number comes from. Values marked
-// "from memory" were recalled from the published table and could not be
-// re-read from the standard while writing this; check them against a copy of
-// the standard before relying on them for anything beyond a preset default.
+// Material presets with the clause each number comes from. Values whose source
+// says "to be confirmed against …" were recalled from the published table and
+// could not be re-read from the standard while writing this; the working
+// prints that note so a checker confirms them against a copy of the standard.
 
 import type { LoadDuration, ServiceClass, TimberType } from "./types";
 
@@ -19,6 +19,9 @@ export interface SteelGrade {
   /** Thickness up to which fyMpa applies, and the value beyond it (EN grades only). */
   tLimitMm?: number;
   fyThickMpa?: number;
+  /** Yield by thickness from the product standard: [thickness up to (mm), f_y (MPa)], thinnest first. */
+  productBands?: readonly (readonly [number, number])[];
+  productSource?: string;
   /** Hollow-section yield where it differs from the shaped value (ASTM A500 round vs rectangular). */
   fyRoundMpa?: number;
   family: "EN" | "ASTM";
@@ -26,14 +29,24 @@ export interface SteelGrade {
 }
 
 const EN_TABLE_3_1 = "EN 1993-1-1 Table 3.1 (nominal fy, EN 10025-2 / EN 10210-1 / EN 10219-1)";
-const AISC_TABLE_2_4 = "AISC Steel Construction Manual (15th ed.) Table 2-4 / ASTM specification minimum Fy (from memory)";
+const EN10025 = "EN 10025-2:2019 Table 7 minimum yield strength ReH by nominal thickness (value to be confirmed against the table; EN 10210-1 / EN 10219-1 use the same steps to 40 mm)";
+const BANDS = (a: number, b: number, c: number, d: number, e: number) =>
+  [
+    [16, a],
+    [40, b],
+    [63, c],
+    [80, d],
+    [100, e],
+  ] as const;
+
+const AISC_TABLE_2_4 = "AISC Steel Construction Manual (15th ed.) Table 2-4 / ASTM specification minimum Fy (value to be confirmed against Table 2-4)";
 
 export const STEEL_GRADES: readonly SteelGrade[] = [
-  { id: "S235", label: "S235", fyMpa: 235, tLimitMm: 40, fyThickMpa: 215, family: "EN", source: EN_TABLE_3_1 },
-  { id: "S275", label: "S275", fyMpa: 275, tLimitMm: 40, fyThickMpa: 255, family: "EN", source: EN_TABLE_3_1 },
-  { id: "S355", label: "S355", fyMpa: 355, tLimitMm: 40, fyThickMpa: 335, family: "EN", source: EN_TABLE_3_1 },
-  { id: "S420", label: "S420", fyMpa: 420, tLimitMm: 40, fyThickMpa: 390, family: "EN", source: EN_TABLE_3_1 },
-  { id: "S460", label: "S460", fyMpa: 460, tLimitMm: 40, fyThickMpa: 430, family: "EN", source: EN_TABLE_3_1 },
+  { id: "S235", label: "S235", fyMpa: 235, tLimitMm: 40, fyThickMpa: 215, productBands: BANDS(235, 225, 215, 215, 215), productSource: EN10025, family: "EN", source: EN_TABLE_3_1 },
+  { id: "S275", label: "S275", fyMpa: 275, tLimitMm: 40, fyThickMpa: 255, productBands: BANDS(275, 265, 255, 245, 235), productSource: EN10025, family: "EN", source: EN_TABLE_3_1 },
+  { id: "S355", label: "S355", fyMpa: 355, tLimitMm: 40, fyThickMpa: 335, productBands: BANDS(355, 345, 335, 325, 315), productSource: EN10025, family: "EN", source: EN_TABLE_3_1 },
+  { id: "S420", label: "S420", fyMpa: 420, tLimitMm: 40, fyThickMpa: 390, productBands: BANDS(420, 400, 390, 370, 360), productSource: EN10025.replace("EN 10025-2:2019 Table 7", "EN 10025-4 / EN 10025-3"), family: "EN", source: EN_TABLE_3_1 },
+  { id: "S460", label: "S460", fyMpa: 460, tLimitMm: 40, fyThickMpa: 430, productBands: BANDS(460, 440, 430, 410, 400), productSource: EN10025.replace("EN 10025-2:2019 Table 7", "EN 10025-4 / EN 10025-3"), family: "EN", source: EN_TABLE_3_1 },
   { id: "A36", label: "ASTM A36", fyMpa: 36 * KSI_TO_MPA, family: "ASTM", source: AISC_TABLE_2_4 + ": A36 Fy = 36 ksi" },
   { id: "A992", label: "ASTM A992", fyMpa: 50 * KSI_TO_MPA, family: "ASTM", source: AISC_TABLE_2_4 + ": A992 Fy = 50 ksi" },
   {
@@ -67,8 +80,8 @@ export interface TimberClass {
   source: string;
 }
 
-const EN338 = "EN 338:2016 Table 1 (from memory)";
-const EN14080 = "EN 14080:2013 Table 5 (from memory)";
+const EN338 = "EN 338:2016 Table 1 (value to be confirmed against EN 338:2016 Table 1)";
+const EN14080 = "EN 14080:2013 Table 5 (value to be confirmed against EN 14080:2013 Table 5)";
 
 export const TIMBER_CLASSES: readonly TimberClass[] = [
   { id: "C14", fc0kMpa: 16, e005Mpa: 4700, timberType: "solid", source: EN338 },

@@ -1,10 +1,10 @@
 // What each method is called and which request fields it reads, so a form
 // can be built from the same list the engine dispatches on.
 
-import type { Basis, MethodId, Section } from "./types";
+import type { Basis, CapacityMethodId, CheckMethodId, MethodId, Section } from "./types";
 
-export interface MethodInfo {
-  id: MethodId;
+export interface MethodInfo<Id extends MethodId = CapacityMethodId> {
+  id: Id;
   label: string;
   description: string;
   basis: Basis;
@@ -104,14 +104,58 @@ export const METHODS: readonly MethodInfo[] = [
     label: "Point braces along a member",
     description: "Buckling load between braces and the strength and stiffness each brace needs (Winter/Yura; AISC 360-16 Appendix 6).",
     basis: "elastic-critical",
-    required: ["lengthMm", "section", "braces", "loadN"],
-    optional: ["eMpa", "designBasis"],
+    required: ["lengthMm", "braces", "loadN"],
+    optional: ["section", "eMpa", "designBasis"],
     sectionShapes: ALL_SHAPES,
     lengthDependent: true,
   },
 ];
 
-export function methodInfo(id: MethodId): MethodInfo {
-  // METHODS lists every MethodId, so find() cannot miss.
-  return METHODS.find((m) => m.id === id) as MethodInfo;
+/** The checks around a member: combined or bearing checks and the back-propping sequence. */
+export const CHECK_METHODS: readonly MethodInfo<CheckMethodId>[] = [
+  {
+    id: "out-of-plumb",
+    label: "Out of plumb or eccentric load",
+    description: "A member standing out of plumb or loaded off its axis: axial force, the horizontal force at the ends and the amplified moment (EN 1993-1-1 §6.3.3 or AISC 360-16 H1); for an EN 1065 prop, its class rating within the plumb tolerance.",
+    basis: "design-resistance",
+    required: ["lengthMm", "loadN", "outOfPlumbDeg|outOfPlumbMm|eccentricityMm", "section+fyMpa|steelGrade|propClass+maxExtensionMm"],
+    optional: ["k", "ends", "eMpa", "formed", "curve", "gammaM1", "plumbCode", "designBasis", "hssWeld", "minExtensionMm"],
+    sectionShapes: ["chs", "rhs", "rect", "round"],
+    lengthDependent: true,
+  },
+  {
+    id: "base-bearing",
+    label: "Bearing under the base",
+    description: "Pressure under a base plate or timber sole plate against an allowable bearing pressure, and punching of the slab below a back-prop (EN 1992-1-1 §6.4 or ACI 318-19 §22.6).",
+    basis: "bearing-resistance",
+    required: ["loadN", "basePlateBMm", "basePlateLMm", "allowablePressureKPa|soil|slabDepthMm+fckMpa"],
+    optional: ["solePlateBMm", "solePlateLMm", "solePlateTMm", "slabEffectiveDepthMm", "rhoL", "punchingCode"],
+    sectionShapes: [],
+    lengthDependent: false,
+  },
+  {
+    id: "backprop-sequence",
+    label: "Back-propping over several floors",
+    description: "Loads on each slab and each level of props through the casting cycle, as multiples of one slab's weight (Grundy & Kabaila 1963, simplified method).",
+    basis: "load-ratio",
+    required: ["shoredLevels", "slabSelfWeightKPa"],
+    optional: ["formworkKPa", "constructionKPa", "cycles"],
+    sectionShapes: [],
+    lengthDependent: false,
+  },
+  {
+    id: "raking-combined",
+    label: "Raking shore, axial force and bending",
+    description: "A steel raker checked for its axial force with bending from its own weight and any eccentricity (EN 1993-1-1 §6.3.3 or AISC 360-16 H1).",
+    basis: "design-resistance",
+    required: ["lengthMm", "angleDeg", "loadN", "section", "fyMpa|steelGrade"],
+    optional: ["k", "ends", "eMpa", "formed", "curve", "gammaM1", "eccentricityMm", "selfWeightNPerM", "plumbCode", "designBasis", "hssWeld"],
+    sectionShapes: ["chs", "rhs", "rect", "round"],
+    lengthDependent: true,
+  },
+];
+
+export function methodInfo(id: MethodId): MethodInfo<MethodId> {
+  // METHODS and CHECK_METHODS together list every MethodId, so find() cannot miss.
+  return ([...METHODS, ...CHECK_METHODS] as MethodInfo<MethodId>[]).find((m) => m.id === id) as MethodInfo<MethodId>;
 }

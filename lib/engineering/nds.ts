@@ -8,7 +8,9 @@ import { NDS_C } from "./materials";
 import { fieldError, fmt, step } from "./steps";
 import type { CalculationRequest, FieldError, MethodOutcome, Step, TimberType } from "./types";
 
+/** NDS 2018 §3.7.1.4: l_e/d shall not exceed 50, except that during construction it shall not exceed 75. */
 export const NDS_SLENDERNESS_LIMIT = 50;
+export const NDS_CONSTRUCTION_SLENDERNESS_LIMIT = 75;
 
 /** F_cE = 0.822·E_min'/(l_e/d)², NDS 2018 (3.7-1). */
 export function ndsFcE(eMinMpa: number, slenderness: number): number {
@@ -56,21 +58,25 @@ export function runNds(req: CalculationRequest): MethodOutcome {
   if (section.shape === "round") {
     // NDS designs a round column as the square column of the same area.
     d = Math.sqrt(props.areaMm2);
-    steps.push(step("Round column taken as a square of equal area, d = √A", "d", d, "mm", "NDS 2018 §3.7.3 (from memory)"));
+    steps.push(step("Round column taken as a square of equal area, d = √A", "d", d, "mm", "NDS 2018 §3.7.3 (clause number to be confirmed against NDS 2018)"));
   } else {
     d = props.leastDimensionMm as number;
     steps.push(step("Least cross-section dimension", "d", d, "mm", "NDS 2018 §3.7.1.3"));
   }
-  const eff = effectiveLength(req.lengthMm, req);
+  const eff = effectiveLength(req.lengthMm, req, "nds");
   const le = eff.effectiveLengthMm;
   const ratio = le / d;
-  if (ratio > NDS_SLENDERNESS_LIMIT) {
+  const construction = req.duringConstruction ?? true;
+  const limit = construction ? NDS_CONSTRUCTION_SLENDERNESS_LIMIT : NDS_SLENDERNESS_LIMIT;
+  if (ratio > limit) {
     return {
       ok: false,
       errors: [
         fieldError(
           "lengthMm",
-          `The slenderness l_e/d = ${fmt(ratio)} is over ${NDS_SLENDERNESS_LIMIT}, the NDS 2018 §3.7.1.4 limit for solid columns (l_e = ${fmt(le)} mm, d = ${fmt(d)} mm). Shorten the unbraced length, brace the post or use a thicker section.`,
+          construction
+            ? `The slenderness l_e/d = ${fmt(ratio)} is over ${limit}, the NDS 2018 §3.7.1.4 limit for solid columns during construction (l_e = ${fmt(le)} mm, d = ${fmt(d)} mm). Shorten the unbraced length, brace the post or use a thicker section.`
+            : `The slenderness l_e/d = ${fmt(ratio)} is over ${limit}, the NDS 2018 §3.7.1.4 limit for solid columns (l_e = ${fmt(le)} mm, d = ${fmt(d)} mm). Shorten the unbraced length, brace the post or use a thicker section.`,
         ),
       ],
     };
@@ -83,12 +89,17 @@ export function runNds(req: CalculationRequest): MethodOutcome {
   const capacity = fcPrime * props.areaMm2;
 
   const warnings = [...eff.warnings];
+  if (construction && ratio > NDS_SLENDERNESS_LIMIT) {
+    warnings.push(
+      `l_e/d = ${fmt(ratio)} is over 50: NDS 2018 §3.7.1.4 allows up to 75 only during construction. This post must not stay in place as part of the permanent structure.`,
+    );
+  }
   if (req.c === undefined && req.timberType === undefined) {
     warnings.push(`c = ${fmt(c)} for ${TYPE_WORDS[timberType]} was assumed; give timberType or c if the member is glulam, SCL or a pole.`);
   }
   steps.push(
     ...eff.steps,
-    step("Slenderness ratio l_e/d (limit 50)", "l_e/d", ratio, "", "NDS 2018 §3.7.1.4"),
+    step(construction ? "Slenderness ratio l_e/d (limit 75 during construction, 50 otherwise)" : "Slenderness ratio l_e/d (limit 50)", "l_e/d", ratio, "", "NDS 2018 §3.7.1.4"),
     step("Adjusted compression value (given), all factors except C_P", "F_c*", fcStar, "MPa", "User input (NDS 2018 §3.7.1.5)"),
     step("Adjusted minimum modulus (given)", "E_min'", eMin, "MPa", "User input (NDS 2018 §3.7.1.5)"),
     step("Critical buckling design value F_cE = 0.822·E_min'/(l_e/d)²", "F_cE", fcE, "MPa", "NDS 2018 §3.7.1.5 (3.7-1)"),

@@ -7,7 +7,7 @@
 import { z } from "zod";
 import { END_CONDITION_IDS } from "./effective-length";
 import { fmt } from "./steps";
-import { METHOD_IDS, type CalculationRequest, type FieldError, type Section, type TableRow } from "./types";
+import { ALL_METHOD_IDS, CHECK_METHOD_IDS, METHOD_IDS, type CalculationRequest, type FieldError, type Section, type TableRow } from "./types";
 
 /** Words for what arrived, e.g. `the text "12"`, so the message says why it was refused. */
 export function describeValue(v: unknown): string {
@@ -119,6 +119,23 @@ export const N = {
   minExtensionMm: numberSchema({ label: "Minimum (closed) extension of the prop", unit: "mm", max: 10_000 }),
   braces: numberSchema({ label: "Number of intermediate braces", min: 1, max: 50, integer: true }),
   loadN: numberSchema({ label: "Load", unit: "N", min: 0, max: 1e9, hint: "Enter the compressive load as a positive number." }),
+  outOfPlumbDeg: numberSchema({ label: "Out of plumb angle", unit: "degrees", min: 0, max: 45, hint: "Give the measured lean from vertical, e.g. 3 for a prop found 3° out." }),
+  outOfPlumbMm: numberSchema({ label: "Out of plumb offset (top relative to bottom)", unit: "mm", min: 0, max: 10_000 }),
+  eccentricityMm: numberSchema({ label: "Load eccentricity", unit: "mm", min: 0, max: 5_000 }),
+  plateMm: (label: string) => numberSchema({ label, unit: "mm", max: 10_000 }),
+  allowablePressureKPa: numberSchema({ label: "Allowable bearing pressure", unit: "kPa (kN/m²)", max: 100_000 }),
+  slabDepthMm: numberSchema({ label: "Slab depth", unit: "mm", max: 3_000 }),
+  slabEffectiveDepthMm: numberSchema({ label: "Slab effective depth d", unit: "mm", max: 3_000 }),
+  fckMpa: numberSchema({ label: "Concrete strength f_ck (or f'c)", unit: "MPa", min: 8, max: 100, hint: "EN 1992-1-1 Table 3.1 covers C12/15 to C90/105." }),
+  rhoL: numberSchema({ label: "Tension reinforcement ratio ρl", min: 0, max: 0.02, hint: "EN 1992-1-1 §6.4.4 caps ρl at 0.02." }),
+  shoredLevels: numberSchema({ label: "Number of shored levels", min: 1, max: 6, integer: true, hint: "The simplified method is set up here for 1 to 6 levels of props." }),
+  slabSelfWeightKPa: numberSchema({ label: "Slab self-weight", unit: "kPa (kN/m²)", max: 100 }),
+  formworkKPa: numberSchema({ label: "Formwork self-weight", unit: "kPa (kN/m²)", min: 0, max: 50 }),
+  constructionKPa: numberSchema({ label: "Construction operations load", unit: "kPa (kN/m²)", min: 0, max: 50 }),
+  cycles: numberSchema({ label: "Number of casting cycles", min: 1, max: 40, integer: true }),
+  angleDeg: numberSchema({ label: "Raker angle from horizontal", unit: "degrees", gt: 0, max: 89.9 }),
+  selfWeightNPerM: numberSchema({ label: "Self-weight of the member", unit: "N/m", min: 0, max: 100_000 }),
+  cornerRadiusMm: numberSchema({ label: "Outside corner radius", unit: "mm", min: 0, max: 1_000 }),
   tableLengthMm: numberSchema({ label: "length", unit: "mm", max: LENGTH_MAX_MM }),
   tableSafeLoadN: numberSchema({ label: "safe load", unit: "N", max: 1e9 }),
 };
@@ -128,7 +145,7 @@ const dim = (label: string) => numberSchema({ label, unit: "mm", max: DIM_MAX_MM
 const SECTION_SHAPES = ["chs", "rhs", "rect", "round", "given"] as const;
 const SECTION_SCHEMAS = {
   chs: z.object({ shape: z.literal("chs"), dMm: dim("Outside diameter D"), tMm: dim("Wall thickness t") }),
-  rhs: z.object({ shape: z.literal("rhs"), bMm: dim("Width b"), hMm: dim("Depth h"), tMm: dim("Wall thickness t") }),
+  rhs: z.object({ shape: z.literal("rhs"), bMm: dim("Width b"), hMm: dim("Depth h"), tMm: dim("Wall thickness t"), cornerRadiusMm: N.cornerRadiusMm.optional() }),
   rect: z.object({ shape: z.literal("rect"), bMm: dim("Width b"), hMm: dim("Depth h") }),
   round: z.object({ shape: z.literal("round"), dMm: dim("Diameter D") }),
   given: z.object({
@@ -138,8 +155,13 @@ const SECTION_SCHEMAS = {
   }),
 } as const;
 
+const bool = (label: string) => z.boolean({ error: (iss) => `${label} must be true or false (got ${describeValue(iss.input)}).` });
+
+/** Methods that do not read a member length. */
+export const LENGTHLESS_METHODS: readonly string[] = ["base-bearing", "backprop-sequence"];
+
 const FLAT_SCHEMA = z.object({
-  lengthMm: N.lengthMm,
+  lengthMm: N.lengthMm.optional(),
   k: N.k.optional(),
   ends: enumSchema(END_CONDITION_IDS as unknown as readonly [string, ...string[]], "End conditions").optional(),
   eMpa: N.eMpa.optional(),
@@ -171,6 +193,33 @@ const FLAT_SCHEMA = z.object({
   braces: N.braces.optional(),
   designBasis: enumSchema(["lrfd", "asd"], "Design basis").optional(),
   loadN: N.loadN.optional(),
+  fyFrom: enumSchema(["product-standard", "en1993-table-3.1"], "Source of the yield strength (fyFrom)").optional(),
+  hssWeld: enumSchema(["erw", "saw"], "Tube welding (hssWeld)").optional(),
+  duringConstruction: bool("During construction (duringConstruction)").optional(),
+  supplierInterpolation: enumSchema(["inverse-square", "lower-row"], "Supplier table interpolation").optional(),
+  outOfPlumbDeg: N.outOfPlumbDeg.optional(),
+  outOfPlumbMm: N.outOfPlumbMm.optional(),
+  eccentricityMm: N.eccentricityMm.optional(),
+  plumbCode: enumSchema(["en1993", "aisc360"], "Design code for the out-of-plumb check").optional(),
+  basePlateBMm: N.plateMm("Base plate width").optional(),
+  basePlateLMm: N.plateMm("Base plate length").optional(),
+  solePlateBMm: N.plateMm("Sole plate width").optional(),
+  solePlateLMm: N.plateMm("Sole plate length").optional(),
+  solePlateTMm: N.plateMm("Sole plate thickness").optional(),
+  allowablePressureKPa: N.allowablePressureKPa.optional(),
+  soil: enumSchema(["soft-clay", "firm-clay", "stiff-clay", "loose-sand", "medium-sand", "dense-gravel", "hardcore"], "Ground type").optional(),
+  slabDepthMm: N.slabDepthMm.optional(),
+  slabEffectiveDepthMm: N.slabEffectiveDepthMm.optional(),
+  fckMpa: N.fckMpa.optional(),
+  rhoL: N.rhoL.optional(),
+  punchingCode: enumSchema(["en1992", "aci318"], "Punching code").optional(),
+  shoredLevels: N.shoredLevels.optional(),
+  slabSelfWeightKPa: N.slabSelfWeightKPa.optional(),
+  formworkKPa: N.formworkKPa.optional(),
+  constructionKPa: N.constructionKPa.optional(),
+  cycles: N.cycles.optional(),
+  angleDeg: N.angleDeg.optional(),
+  selfWeightNPerM: N.selfWeightNPerM.optional(),
 });
 
 export function issuesToErrors(issues: readonly { path: readonly PropertyKey[]; message: string }[], prefix = ""): FieldError[] {
@@ -263,12 +312,13 @@ export function parseRequest(raw: unknown): ParsedRequest {
   }
   const method = own(raw, "method");
   if (method === undefined) {
-    return { ok: false, errors: [{ field: "method", message: `Choose a calculation method: ${METHOD_IDS.join(", ")}.` }] };
+    return { ok: false, errors: [{ field: "method", message: `Choose a calculation method: ${ALL_METHOD_IDS.join(", ")}.` }] };
   }
-  if (typeof method !== "string" || !(METHOD_IDS as readonly string[]).includes(method)) {
+  const otherChecks = { field: "", message: `Besides member capacity, these checks are methods too: ${CHECK_METHOD_IDS.join(", ")}.` };
+  if (typeof method !== "string" || !(ALL_METHOD_IDS as readonly string[]).includes(method)) {
     return {
       ok: false,
-      errors: [{ field: "method", message: `Unknown calculation method (got ${describeValue(method)}); choose one of ${METHOD_IDS.join(", ")}.` }],
+      errors: [{ field: "method", message: `Unknown calculation method (got ${describeValue(method)}); choose one of ${METHOD_IDS.join(", ")}.` }, otherChecks],
     };
   }
   // Copy only known keys, read as own properties, so a "__proto__" key in the JSON can never inject fields.
@@ -280,6 +330,9 @@ export function parseRequest(raw: unknown): ParsedRequest {
   const errors: FieldError[] = [];
   const flat = FLAT_SCHEMA.safeParse(flatInput);
   if (!flat.success) errors.push(...issuesToErrors(flat.error.issues));
+  if (flatInput.lengthMm === undefined && !LENGTHLESS_METHODS.includes(method)) {
+    errors.unshift({ field: "lengthMm", message: "Length is required." });
+  }
   let section: Section | undefined;
   const rawSection = own(raw, "section");
   if (rawSection !== undefined) {

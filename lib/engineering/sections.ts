@@ -20,6 +20,46 @@ export const rhsSecondMoment = (b: number, h: number, t: number): number => {
   const hi = h - 2 * t;
   return (b * h * h * h - bi * hi * hi * hi) / 12;
 };
+/** Corner "spandrel" (an r × r square less a quarter circle of radius r): area r²(1 − π/4), centroid r(10 − 3π)/(12 − 3π) from the outer edges. */
+const SPANDREL_AREA = 1 - PI / 4;
+const SPANDREL_CENTROID = (10 - 3 * PI) / (12 - 3 * PI);
+/** Second moment of a spandrel about an axis through its centroid parallel to a straight edge: r⁴[(1 − 5π/16) − (1 − π/4)·c²]. */
+const SPANDREL_OWN_I = 1 - (5 * PI) / 16 - SPANDREL_AREA * SPANDREL_CENTROID * SPANDREL_CENTROID;
+
+/** Second moment of one spandrel of radius r about an axis at `edge` from its outer edges. */
+function spandrelI(r: number, edge: number): number {
+  if (r <= 0) return 0;
+  const r2 = r * r;
+  const d = edge - SPANDREL_CENTROID * r;
+  return SPANDREL_OWN_I * r2 * r2 + SPANDREL_AREA * r2 * d * d;
+}
+
+/**
+ * Area of a rectangular hollow section with rounded corners, EN 10219-2 / EN 10210-2
+ * formula: A = 2t(B + H − 2t) − (4 − π)(r_o² − r_i²).
+ */
+export const rhsRoundedArea = (b: number, h: number, t: number, ro: number, ri: number): number =>
+  2 * t * (b + h - 2 * t) - (4 - PI) * (ro * ro - ri * ri);
+
+/**
+ * Second moment for bending that curves the `h` sides, with rounded corners: the
+ * square-corner value less the four outer spandrels (radius r_o, edge at h/2) plus
+ * the four inner ones (radius r_i, edge at h/2 − t), each by the parallel-axis rule.
+ */
+export const rhsRoundedSecondMoment = (b: number, h: number, t: number, ro: number, ri: number): number =>
+  rhsSecondMoment(b, h, t) - 4 * spandrelI(ro, h / 2) + 4 * spandrelI(ri, h / 2 - t);
+
+/** How the corner radii of a hollow section are set when the user does not give them. */
+export type CornerRule = "cold-formed" | "hot-finished" | "aisc";
+
+/** Outside and inside corner radii by the product standard. */
+export function cornerRadii(t: number, rule: CornerRule): { ro: number; ri: number; source: string } {
+  if (rule === "hot-finished") return { ro: 1.5 * t, ri: t, source: "EN 10210-2 (hot-finished): r_o = 1.5t, r_i = 1.0t for calculating properties" };
+  if (rule === "aisc") return { ro: 2 * t, ri: t, source: "AISC Steel Construction Manual Part 1 (HSS): outside corner radius 2.0·t_des" };
+  const ro = t <= 6 ? 2 * t : t <= 10 ? 2.5 * t : 3 * t;
+  return { ro, ri: ro - t, source: "EN 10219-2 (cold-formed): r_o = 2t (t ≤ 6 mm), 2.5t (6 < t ≤ 10 mm), 3t (t > 10 mm), r_i = r_o − t" };
+}
+
 export const rectArea = (b: number, h: number): number => b * h;
 export const rectSecondMoment = (b: number, h: number): number => (b * h * h * h) / 12;
 export const roundArea = (d: number): number => (PI * d * d) / 4;
@@ -42,7 +82,7 @@ export interface SectionProperties {
 
 const SRC_GEOM = "Section geometry (elementary mechanics)";
 
-export function sectionProperties(section: Section): SectionProperties {
+export function sectionProperties(section: Section, cornerRule: CornerRule = "cold-formed"): SectionProperties {
   const steps: Step[] = [];
   let areaMm2: number;
   let iMinMm4: number;
@@ -65,26 +105,32 @@ export function sectionProperties(section: Section): SectionProperties {
     }
     case "rhs": {
       const { bMm: b, hMm: h, tMm: t } = section;
-      areaMm2 = rhsArea(b, h, t);
-      const ih = rhsSecondMoment(b, h, t);
-      const ib = rhsSecondMoment(h, b, t);
-      iMinMm4 = Math.min(ih, ib);
-      iMaxMm4 = Math.max(ih, ib);
       kind = "hollow";
       thicknessMm = t;
       steps.push(step("Rectangular hollow section, b × h × t", "b × h × t", `${fmt(b)} × ${fmt(h)} × ${fmt(t)}`, "mm", SRC_GEOM));
-      steps.push(
-        step(
-          "Square-corner geometry: corner radii are ignored, which slightly overstates A and I compared with EN 10219-2 / EN 10210-2 tabulated values",
-          "—",
-          "square corners",
-          "",
-          SRC_GEOM,
-        ),
-      );
-      steps.push(step("Area A = b·h − (b − 2t)(h − 2t)", "A", areaMm2, "mm²", SRC_GEOM));
-      steps.push(step("Second moment, major axis", "I_max", iMaxMm4, "mm⁴", SRC_GEOM));
-      steps.push(step("Second moment, minor axis", "I_min", iMinMm4, "mm⁴", SRC_GEOM));
+      let ro: number;
+      let ri: number;
+      if (section.cornerRadiusMm !== undefined) {
+        ro = section.cornerRadiusMm;
+        ri = Math.max(ro - t, 0);
+        steps.push(step(ro === 0 ? "Square-corner geometry: outside corner radius 0 given" : "Outside corner radius (given)", "r_o", ro, "mm", "User input"));
+        steps.push(step("Inside corner radius r_i = max(r_o − t, 0)", "r_i", ri, "mm", SRC_GEOM));
+      } else {
+        const r = cornerRadii(t, cornerRule);
+        ro = r.ro;
+        ri = r.ri;
+        steps.push(step("Outside corner radius for calculating properties", "r_o", ro, "mm", r.source));
+        steps.push(step("Inside corner radius", "r_i", ri, "mm", r.source));
+      }
+      areaMm2 = rhsRoundedArea(b, h, t, ro, ri);
+      const ih = rhsRoundedSecondMoment(b, h, t, ro, ri);
+      const ib = rhsRoundedSecondMoment(h, b, t, ro, ri);
+      iMinMm4 = Math.min(ih, ib);
+      iMaxMm4 = Math.max(ih, ib);
+      const SRC_RHS = "EN 10219-2 / EN 10210-2 formulae for sectional properties (rounded corners)";
+      steps.push(step("Area A = 2t(b + h − 2t) − (4 − π)(r_o² − r_i²)", "A", areaMm2, "mm²", SRC_RHS));
+      steps.push(step("Second moment, major axis (square-corner value less the corner spandrels)", "I_max", iMaxMm4, "mm⁴", SRC_RHS));
+      steps.push(step("Second moment, minor axis", "I_min", iMinMm4, "mm⁴", SRC_RHS));
       break;
     }
     case "rect": {
@@ -151,6 +197,14 @@ export function checkSectionGeometry(section: Section, path = "section"): FieldE
   }
   if (section.shape === "rhs") {
     const least = Math.min(section.bMm, section.hMm);
+    if (section.cornerRadiusMm !== undefined && 2 * section.cornerRadiusMm > least) {
+      errors.push(
+        fieldError(
+          `${path}.cornerRadiusMm`,
+          `The outside corner radius must be at most half the smaller side (got r_o = ${fmt(section.cornerRadiusMm)} mm for a ${fmt(section.bMm)} × ${fmt(section.hMm)} mm section).`,
+        ),
+      );
+    }
     if (2 * section.tMm >= least) {
       errors.push(
         fieldError(

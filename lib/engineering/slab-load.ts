@@ -12,15 +12,26 @@ import { ENGINE_VERSION } from "./version";
 export const WET_REINFORCED_CONCRETE_KN_M3 = 26;
 /** Allowance for formwork and its bearers (common practice; replace with the system's real self-weight when known). */
 export const FORMWORK_ALLOWANCE_KN_M2 = 0.5;
-/** EN 1991-1-6 §4.11.2 Table 4.2: outside the working area. */
+/** EN 12812 §8.2.2.3 / BS 5975 §17: construction operations outside the working area. */
 export const CONSTRUCTION_OUTSIDE_KN_M2 = 0.75;
+/** Upper limit of the working-area load in EN 12812 / BS 5975 (EN 1991-1-6 Table 4.2 uses 1.5). */
+export const WORKING_AREA_MAX_KN_M2 = 1.75;
+export const CONSTRUCTION_SOURCE = "EN 12812:2008 §8.2.2.3 / BS 5975:2019 §17 (falsework loads: working area 10 % of the slab weight, 0.75–1.75 kN/m²; elsewhere 0.75 kN/m²; clause numbers to be confirmed against the standards)";
 
 /** EN 1991-1-6 Table 4.2 working-area value: 10 % of the concrete self-weight, not less than 0.75 and not more than 1.5 kN/m². */
 export function workingAreaConstructionLoad(concreteKnM2: number): number {
   return Math.min(1.5, Math.max(0.75, 0.1 * concreteKnM2));
 }
 
+/** EN 12812 / BS 5975 working-area value for falsework: 10 % of the concrete self-weight, not less than 0.75 and not more than 1.75 kN/m². Used by the slab-load check. */
+export function falseworkWorkingAreaLoad(concreteKnM2: number): number {
+  return Math.min(WORKING_AREA_MAX_KN_M2, Math.max(0.75, 0.1 * concreteKnM2));
+}
+
 export interface SlabLoadBreakdown {
+  /** Both construction-operations values, so a designer sees which members carry which. */
+  workingAreaKnM2?: number;
+  outsideWorkingAreaKnM2?: number;
   concreteKnM2: number;
   formworkKnM2: number;
   constructionKnM2: number;
@@ -99,7 +110,8 @@ export function calculateSlabLoad(request: unknown): SlabLoadResult {
     const formwork = r.formworkKnM2 ?? FORMWORK_ALLOWANCE_KN_M2;
     const concreteKnM2 = (density * r.slabThicknessMm) / 1000;
     const rule = r.constructionRule ?? "working-area";
-    const construction = r.constructionKnM2 ?? (rule === "working-area" ? workingAreaConstructionLoad(concreteKnM2) : CONSTRUCTION_OUTSIDE_KN_M2);
+    const workingArea = falseworkWorkingAreaLoad(concreteKnM2);
+    const construction = r.constructionKnM2 ?? (rule === "working-area" ? workingArea : CONSTRUCTION_OUTSIDE_KN_M2);
     const asPermanent = r.concreteAsPermanent ?? false;
     const gammaQ = r.gammaQ ?? 1.5;
     const gammaConcrete = asPermanent ? (r.gammaG ?? 1.35) : gammaQ;
@@ -126,8 +138,10 @@ export function calculateSlabLoad(request: unknown): SlabLoadResult {
       r.constructionKnM2 !== undefined
         ? step("Construction operations load (given)", "q_c", construction, "kN/m²", "User input")
         : rule === "working-area"
-          ? step("Construction operations load in the working area: 10 % of g_c, within 0.75–1.5", "q_c", construction, "kN/m²", "EN 1991-1-6 §4.11.2 Table 4.2 (2)")
-          : step("Construction operations load outside the working area", "q_c", construction, "kN/m²", "EN 1991-1-6 §4.11.2 Table 4.2 (1)"),
+          ? step("Construction operations load in the working area: 10 % of g_c, within 0.75–1.75 (the larger value, used for members under the working area)", "q_c", construction, "kN/m²", CONSTRUCTION_SOURCE)
+          : step("Construction operations load outside the working area", "q_c", construction, "kN/m²", CONSTRUCTION_SOURCE),
+      step("Construction operations, working area: 10 % of g_c within 0.75–1.75", "q_c,wa", workingArea, "kN/m²", CONSTRUCTION_SOURCE),
+      step("Construction operations, outside the working area", "q_c,out", CONSTRUCTION_OUTSIDE_KN_M2, "kN/m²", CONSTRUCTION_SOURCE),
       step("Total working pressure w = g_c + g_f + q_c", "w", b.totalKnM2, "kN/m²", "Sum"),
       step("Tributary area per member = s_x·s_y", "A_t", b.tributaryAreaM2, "m²", `Geometry: ${fmt(r.spacingXMm)} × ${fmt(r.spacingYMm)} mm`),
       step("Working (unfactored) load per member = w·A_t", "N_k", b.loadPerMemberN, "N", "Tributary area"),
@@ -136,13 +150,13 @@ export function calculateSlabLoad(request: unknown): SlabLoadResult {
         "γ",
         gammaConcrete,
         "",
-        asPermanent ? "EN 1990 Table A1.2(B) γG" : "EN 1991-1-6 §4.11 (Qcc, Qcf) with EN 1990 Table A1.2(B) γQ (from memory)",
+        asPermanent ? "EN 1990 Table A1.2(B) γG" : "EN 1991-1-6 §4.11 (Qcc, Qcf) with EN 1990 Table A1.2(B) γQ (treatment of fresh concrete as variable to be confirmed against EN 1991-1-6 §4.11)",
       ),
       step("Factor on construction operations", "γQ", gammaQ, "", "EN 1990 Table A1.2(B)"),
       step("Factored pressure", "w_d", b.factoredKnM2, "kN/m²", "EN 1990 (6.10)"),
       step("Factored load per member", "N_Ed", b.factoredLoadPerMemberN, "N", "EN 1990 (6.10)"),
     ];
-    return { ok: true, engineVersion: ENGINE_VERSION, ...b, steps, warnings };
+    return { ok: true, engineVersion: ENGINE_VERSION, ...b, workingAreaKnM2: workingArea, outsideWorkingAreaKnM2: CONSTRUCTION_OUTSIDE_KN_M2, steps, warnings };
   } catch {
     return { ok: false, errors: [{ field: "", message: "The slab-load request could not be read; check every value is a number." }] };
   }

@@ -1,6 +1,10 @@
 // Safe working loads read from a supplier's load table (length → safe load).
-// Between rows the load is interpolated linearly, which is how such tables are
-// normally read; outside the table nothing is extrapolated.
+// A member's buckling capacity falls with about 1/L², a curve that sags below
+// the straight line between two rows, so reading between rows along that line
+// overstates the load. Between rows the load is interpolated linearly in 1/L²
+// (exact when the table follows the Euler curve, and never above the straight
+// line), or the lower row's load is taken; outside the table nothing is
+// extrapolated.
 
 import { fieldError, fmt, step } from "./steps";
 import type { CalculationRequest, FieldError, MethodOutcome, Step, TableRow } from "./types";
@@ -9,7 +13,8 @@ import type { CalculationRequest, FieldError, MethodOutcome, Step, TableRow } fr
 export const TABLE_END_MARGIN = 0.02;
 
 /**
- * Linear interpolation in a sorted table; lengths must be strictly increasing
+ * Straight-line interpolation in a sorted table (kept for comparison and the
+ * bench; the method itself reads on the 1/L² basis below); lengths must be strictly increasing
  * and `x` inside [lengths[0], lengths[n-1]]. Returns NaN outside, so callers
  * must range-check first (the wrapper does).
  */
@@ -26,6 +31,28 @@ export function interpolateTable(lengths: ArrayLike<number>, loads: ArrayLike<nu
   const x0 = lengths[lo];
   const x1 = lengths[hi];
   const t = (x - x0) / (x1 - x0);
+  return loads[lo] + t * (loads[hi] - loads[lo]);
+}
+
+/**
+ * Interpolation linear in 1/L² between the rows either side of `x` (same rules
+ * as interpolateTable). For a decreasing table this is never above the
+ * straight-line value, because 1/L² is convex in L.
+ */
+export function interpolateTableInverseSquare(lengths: ArrayLike<number>, loads: ArrayLike<number>, x: number): number {
+  const n = lengths.length;
+  if (n < 2 || x < lengths[0] || x > lengths[n - 1]) return Number.NaN;
+  let lo = 0;
+  let hi = n - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (lengths[mid] <= x) lo = mid;
+    else hi = mid;
+  }
+  const u0 = 1 / (lengths[lo] * lengths[lo]);
+  const u1 = 1 / (lengths[hi] * lengths[hi]);
+  const u = 1 / (x * x);
+  const t = (u0 - u) / (u0 - u1);
   return loads[lo] + t * (loads[hi] - loads[lo]);
 }
 
@@ -80,11 +107,14 @@ export function runSupplierTable(req: CalculationRequest): MethodOutcome {
       ],
     };
   }
-  const swl = interpolateTable(lengths, loads, l);
+  const rule = req.supplierInterpolation ?? "inverse-square";
   let hi = lengths.findIndex((x) => x >= l);
   if (hi <= 0) hi = 1;
   const lo = hi - 1;
   const exact = lengths[hi] === l ? hi : lengths[lo] === l ? lo : -1;
+  // Between rows: the lower of the two loads for "lower-row"; otherwise linear in 1/L².
+  const swl =
+    exact >= 0 ? loads[exact] : rule === "lower-row" ? Math.min(loads[lo], loads[hi]) : interpolateTableInverseSquare(lengths, loads, l);
   const steps: Step[] = [
     step(`Supplier table with ${rows.length} rows${prepared.sorted ? " (sorted by length)" : ""}, range`, "L_min–L_max", `${fmt(first)}–${fmt(last)}`, "mm", "Supplier's load table (user input)"),
     step("Length used", "L", l, "mm", "User input"),
@@ -94,7 +124,19 @@ export function runSupplierTable(req: CalculationRequest): MethodOutcome {
   } else {
     steps.push(step("Row below", "L₁, P₁", `${fmt(lengths[lo])} mm, ${fmt(loads[lo])} N`, "", "Supplier's load table"));
     steps.push(step("Row above", "L₂, P₂", `${fmt(lengths[hi])} mm, ${fmt(loads[hi])} N`, "", "Supplier's load table"));
-    steps.push(step("Linear interpolation SWL = P₁ + (L − L₁)/(L₂ − L₁)·(P₂ − P₁)", "SWL", swl, "N", "Linear interpolation between table rows"));
+    if (rule === "lower-row") {
+      steps.push(step("Between rows the lower of the two safe loads is taken (no interpolation)", "SWL", swl, "N", "Supplier's load table, lower row"));
+    } else {
+      steps.push(
+        step(
+          "Interpolation linear in 1/L²: SWL = P₁ + (1/L₁² − 1/L²)/(1/L₁² − 1/L₂²)·(P₂ − P₁); follows the 1/L² fall of buckling capacity and never exceeds straight-line interpolation",
+          "SWL",
+          swl,
+          "N",
+          "Interpolation on the Euler 1/L² basis (Timoshenko & Gere §2.2)",
+        ),
+      );
+    }
   }
   const warnings: string[] = [];
   if (l === first || l === last || last - l <= TABLE_END_MARGIN * last) {

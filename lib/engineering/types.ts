@@ -12,14 +12,22 @@ export const METHOD_IDS = [
   "nds",
   "point-brace",
 ] as const;
-export type MethodId = (typeof METHOD_IDS)[number];
+/** Checks a designer makes around a member's buckling capacity; their results carry `checks` or `stages`. */
+export const CHECK_METHOD_IDS = ["out-of-plumb", "base-bearing", "backprop-sequence", "raking-combined"] as const;
+export const ALL_METHOD_IDS = [...METHOD_IDS, ...CHECK_METHOD_IDS] as const;
+export type CapacityMethodId = (typeof METHOD_IDS)[number];
+export type CheckMethodId = (typeof CHECK_METHOD_IDS)[number];
+export type MethodId = CapacityMethodId | CheckMethodId;
 
 export type Basis =
   | "elastic-critical"
   | "design-resistance"
   | "available-strength"
   | "allowable-strength"
-  | "safe-working-load";
+  | "safe-working-load"
+  | "brace-requirement"
+  | "bearing-resistance"
+  | "load-ratio";
 
 /** One line of a calculation sheet. `value` is a string only for non-numeric items (a curve letter, a choice). */
 export interface Step {
@@ -40,7 +48,8 @@ export interface CalculationSuccess {
   ok: true;
   method: MethodId;
   engineVersion: string;
-  capacityN: number;
+  /** The capacity the load is compared with, in N. Absent only where a check has no force capacity (point braces without a section, the back-propping sequence). */
+  capacityN?: number;
   basis: Basis;
   /** Plain-language statement of what load should be compared with capacityN, and the factors used. */
   loadBasis: string;
@@ -59,8 +68,31 @@ export interface CalculationSuccess {
   loadN?: number;
   utilisation?: number;
   pass?: boolean;
+  /** Combined checks (axial + bending, bearing, punching): each part's utilisation; the largest is `utilisation`. */
+  checks?: CheckPart[];
+  /** Back-propping sequence (Grundy & Kabaila 1963). */
+  stages?: BackpropStage[];
+  maxSlabLoadRatio?: number;
+  maxPropLoadRatio?: number;
   steps: Step[];
   warnings: string[];
+}
+
+export interface CheckPart {
+  name: string;
+  demand: number;
+  resistance: number;
+  unit: string;
+  utilisation: number;
+  source: string;
+}
+
+export interface BackpropStage {
+  label: string;
+  /** Load on each slab, top (newest) first, as a multiple of one slab's self-weight. */
+  slabLoadRatios: number[];
+  /** Load in each level of props, top level first (the level under the newest slab), as a multiple of one slab's self-weight. */
+  propLoadRatios: number[];
 }
 
 export interface CalculationFailure {
@@ -80,7 +112,7 @@ export type EndCondition =
 
 export type Section =
   | { shape: "chs"; dMm: number; tMm: number }
-  | { shape: "rhs"; bMm: number; hMm: number; tMm: number }
+  | { shape: "rhs"; bMm: number; hMm: number; tMm: number; cornerRadiusMm?: number }
   | { shape: "rect"; bMm: number; hMm: number }
   | { shape: "round"; dMm: number }
   | { shape: "given"; areaMm2: number; iMinMm4: number };
@@ -131,9 +163,51 @@ export interface CalculationRequest {
   braces?: number;
   designBasis?: DesignBasis;
   loadN?: number;
+  /** AISC HSS: electric-resistance welded (design wall 0.93t) or submerged-arc welded (1.0t). */
+  hssWeld?: HssWeld;
+  /** Where a grade's yield strength comes from: the product standard by thickness (default) or EN 1993-1-1 Table 3.1. */
+  fyFrom?: "product-standard" | "en1993-table-3.1";
+  /** NDS §3.7.1.4: during construction l_e/d may reach 75 (default true: temporary works). */
+  duringConstruction?: boolean;
+  supplierInterpolation?: SupplierInterpolation;
+  // out-of-plumb
+  outOfPlumbDeg?: number;
+  outOfPlumbMm?: number;
+  eccentricityMm?: number;
+  plumbCode?: "en1993" | "aisc360";
+  // base bearing
+  basePlateBMm?: number;
+  basePlateLMm?: number;
+  solePlateBMm?: number;
+  solePlateLMm?: number;
+  solePlateTMm?: number;
+  allowablePressureKPa?: number;
+  soil?: SoilId;
+  slabDepthMm?: number;
+  slabEffectiveDepthMm?: number;
+  fckMpa?: number;
+  rhoL?: number;
+  punchingCode?: "en1992" | "aci318";
+  // backprop sequence
+  shoredLevels?: number;
+  slabSelfWeightKPa?: number;
+  formworkKPa?: number;
+  constructionKPa?: number;
+  cycles?: number;
+  // raking combined
+  angleDeg?: number;
+  selfWeightNPerM?: number;
 }
 
+export type HssWeld = "erw" | "saw";
+export type SupplierInterpolation = "inverse-square" | "lower-row";
+export type SoilId = "soft-clay" | "firm-clay" | "stiff-clay" | "loose-sand" | "medium-sand" | "dense-gravel" | "hardcore";
+
 /** What a method computes before the common envelope (version, utilisation) is added. */
-export type MethodOutput = Omit<CalculationSuccess, "ok" | "method" | "engineVersion" | "utilisation" | "pass" | "loadN">;
+export type MethodOutput = Omit<CalculationSuccess, "ok" | "method" | "engineVersion" | "utilisation" | "pass" | "loadN"> & {
+  /** Set by checks whose utilisation is not loadN/capacityN (interaction, bearing): the envelope uses it as is. */
+  utilisation?: number;
+};
 
 export type MethodOutcome = { ok: true; value: MethodOutput } | CalculationFailure;
+export type CapacityResult = CalculationSuccess & { capacityN: number };

@@ -13,7 +13,17 @@ export type CheckType = {
   minExtensionMm: number | null;
   maxExtensionMm: number | null;
 };
-export type CheckMember = { extensionMm: number; endConditions: Ends; loadN: number };
+export type CheckMember = {
+  extensionMm: number;
+  endConditions: Ends;
+  loadN: number;
+  /**
+   * Measured lean of the member (offset of head over base, mm), e.g. from an inspection.
+   * When it is given and not zero, props and steel members are re-checked out of plumb
+   * (engine method "out-of-plumb") instead of by their plain capacity.
+   */
+  outOfPlumbMm?: number | null;
+};
 export type CheckSite = { designCode: DesignCode; unitSystem: Units };
 
 /**
@@ -33,7 +43,13 @@ export const LOAD_FACTORS = {
 
 export type Basis = keyof typeof LOAD_FACTORS;
 
-export function methodFor(type: CheckType, site: CheckSite): { method: string; basis: Basis } {
+export function methodFor(type: CheckType, site: CheckSite, member?: Pick<CheckMember, "outOfPlumbMm">): { method: string; basis: Basis } {
+  const leaning = member?.outOfPlumbMm != null && member.outOfPlumbMm > 0;
+  if (leaning && type.kind === "en1065-prop") return { method: "out-of-plumb", basis: "safe-working-load" };
+  if (leaning && type.kind === "steel-section") {
+    if (site.designCode === "en1993") return { method: "out-of-plumb", basis: "design-resistance" };
+    return { method: "out-of-plumb", basis: site.designCode === "aisc360-lrfd" ? "available-strength" : "allowable-strength" };
+  }
   switch (type.kind) {
     case "en1065-prop":
       return { method: "en1065", basis: "safe-working-load" };
@@ -58,10 +74,17 @@ const TYPE_KEYS = [
 
 /** The engine request (SI: mm, N, MPa) and the factor that turned the working load into loadN. */
 export function buildCheckRequest(type: CheckType, member: CheckMember, site: CheckSite) {
-  const { method, basis } = methodFor(type, site);
+  const { method, basis } = methodFor(type, site, member);
   const loadFactor = LOAD_FACTORS[basis];
   const request: Record<string, unknown> = { method, lengthMm: member.extensionMm, ends: member.endConditions };
   for (const key of TYPE_KEYS) if (type.params[key] !== undefined) request[key] = type.params[key];
+  if (method === "out-of-plumb") {
+    request.outOfPlumbMm = member.outOfPlumbMm;
+    if (type.kind === "steel-section") {
+      request.plumbCode = site.designCode === "en1993" ? "en1993" : "aisc360";
+      if (site.designCode !== "en1993") request.designBasis = site.designCode === "aisc360-lrfd" ? "lrfd" : "asd";
+    }
+  }
   if (type.kind === "en1065-prop") {
     if (type.maxExtensionMm != null) request.maxExtensionMm = type.maxExtensionMm;
     if (type.minExtensionMm != null) request.minExtensionMm = type.minExtensionMm;

@@ -41,14 +41,16 @@ export function runCheck(type: CheckType, member: CheckMember, site: CheckSite):
       engineVersion: ENGINE_VERSION,
     };
   }
-  const utilisation = result.utilisation ?? (request.loadN as number) / result.capacityN;
+  const capacityN = result.capacityN ?? null;
+  const utilisation = result.utilisation ?? (capacityN === null ? null : (request.loadN as number) / capacityN);
   return {
     method: result.method,
     inputs,
     result: result as unknown as Record<string, unknown>,
-    capacityN: result.capacityN,
+    capacityN,
     utilisation,
-    pass: result.pass ?? utilisation <= 1,
+    // A check with no capacity and no utilisation cannot show the member is safe.
+    pass: result.pass ?? (utilisation !== null && utilisation <= 1),
     engineVersion: ENGINE_VERSION,
   };
 }

@@ -1,7 +1,7 @@
 // The calculator form: text fields as typed (SI or US units), checked for being numbers here;
 // the engine checks ranges and combinations and its errors are mapped back onto these fields.
 import { z } from "zod";
-import { METHOD_IDS, type EndCondition } from "@/lib/engineering/types";
+import { ALL_METHOD_IDS, type EndCondition } from "@/lib/engineering/types";
 
 const num = (label: string) =>
   z
@@ -13,9 +13,9 @@ export const END_OPTIONS: EndCondition[] = ["pinned-pinned", "fixed-pinned", "fi
 export const SHAPES = ["chs", "rhs", "rect", "round", "given"] as const;
 
 export const calculatorFormSchema = z.object({
-  method: z.enum(METHOD_IDS),
+  method: z.enum(ALL_METHOD_IDS),
   units: z.enum(["si", "us"]),
-  length: z.string().trim().min(1, "Enter the length (for a prop, its measured extension)."),
+  length: z.string().trim(),
   ends: z.enum(["", ...END_OPTIONS]),
   k: num("K"),
   shape: z.enum(SHAPES),
@@ -47,6 +47,38 @@ export const calculatorFormSchema = z.object({
   braces: num("Braces"),
   designBasis: z.enum(["lrfd", "asd"]),
   load: num("Load"),
+  hssWeld: z.enum(["", "erw", "saw"]),
+  supplierInterpolation: z.enum(["inverse-square", "lower-row"]),
+  // out of plumb / raking
+  plumbTarget: z.enum(["steel", "prop"]),
+  plumbDeg: num("Angle out of plumb"),
+  plumbOffset: num("Offset out of plumb"),
+  eccentricity: num("Eccentricity"),
+  checkCode: z.enum(["en1993", "aisc360"]),
+  angle: num("Raker angle"),
+  selfWeight: num("Self-weight"),
+  // bearing
+  basePlateB: num("Base plate width"),
+  basePlateL: num("Base plate length"),
+  solePlateB: num("Sole plate width"),
+  solePlateL: num("Sole plate length"),
+  solePlateT: num("Sole plate thickness"),
+  allowablePressure: num("Allowable pressure"),
+  soil: z.enum(["", "soft-clay", "firm-clay", "stiff-clay", "loose-sand", "medium-sand", "dense-gravel", "hardcore"]),
+  slabEffDepth: num("Slab effective depth"),
+  fck: num("Concrete strength"),
+  punchingCode: z.enum(["en1992", "aci318"]),
+  // back-propping
+  shoredLevels: num("Shored levels"),
+  slabSelfWeight: num("Slab self-weight"),
+  formworkLoad: num("Formwork self-weight"),
+  constructionLoad: num("Construction load"),
+  cycles: num("Cycles"),
+}).superRefine((v, ctx) => {
+  // Bearing and the back-propping sequence do not read a member length.
+  if (v.length === "" && v.method !== "base-bearing" && v.method !== "backprop-sequence") {
+    ctx.addIssue({ code: "custom", path: ["length"], message: "Enter the length (for a prop, its measured extension)." });
+  }
 });
 
 export type CalculatorForm = z.infer<typeof calculatorFormSchema>;
@@ -86,4 +118,28 @@ export const CALCULATOR_DEFAULTS: CalculatorForm = {
   braces: "1",
   designBasis: "lrfd",
   load: "",
+  hssWeld: "",
+  supplierInterpolation: "inverse-square",
+  plumbTarget: "steel",
+  plumbDeg: "",
+  plumbOffset: "",
+  eccentricity: "",
+  checkCode: "en1993",
+  angle: "",
+  selfWeight: "",
+  basePlateB: "",
+  basePlateL: "",
+  solePlateB: "",
+  solePlateL: "",
+  solePlateT: "",
+  allowablePressure: "",
+  soil: "",
+  slabEffDepth: "",
+  fck: "",
+  punchingCode: "en1992",
+  shoredLevels: "2",
+  slabSelfWeight: "",
+  formworkLoad: "",
+  constructionLoad: "",
+  cycles: "",
 };

@@ -13,6 +13,9 @@ import {
   eulerLoad,
   IMPERFECTION_FACTORS,
   ndsCapacity,
+  en1992PunchingStress,
+  interpolateTableInverseSquare,
+  rhsRoundedSecondMoment,
 } from "../../lib/engineering";
 
 export interface BenchRow {
@@ -80,6 +83,29 @@ function timeLoop(ms: number, body: (i: number) => number): { perSecond: number;
 }
 
 const ALPHA_B = IMPERFECTION_FACTORS.b;
+const TABLE_L = Float64Array.from([1750, 2000, 2500, 3000, 3500]);
+const TABLE_P = Float64Array.from([35000, 32000, 27000, 22000, 17000]);
+
+function checkRequests(x: Inputs): unknown[] {
+  const out: unknown[] = [];
+  for (let i = 0; i < 256; i++) {
+    const L = Math.round(x.length[i]);
+    switch (i % 4) {
+      case 0:
+        out.push({ method: "out-of-plumb", lengthMm: L, section: { shape: "chs", dMm: 114.3, tMm: 5 }, steelGrade: "S355", loadN: 50000, outOfPlumbDeg: 1 + (i % 3), eccentricityMm: 10 });
+        break;
+      case 1:
+        out.push({ method: "base-bearing", loadN: 20000 + 100 * i, basePlateBMm: 150, basePlateLMm: 150, slabEffectiveDepthMm: 160, fckMpa: 30 });
+        break;
+      case 2:
+        out.push({ method: "raking-combined", lengthMm: 3000 + (L % 3000), angleDeg: 60, section: { shape: "chs", dMm: 168.3, tMm: 6.3 }, fyMpa: 355, loadN: 100000 });
+        break;
+      default:
+        out.push({ method: "backprop-sequence", shoredLevels: 1 + (i % 6), slabSelfWeightKPa: 6 });
+    }
+  }
+  return out;
+}
 
 function cores(x: Inputs): Array<[string, (i: number) => number]> {
   return [
@@ -95,6 +121,9 @@ function cores(x: Inputs): Array<[string, (i: number) => number]> {
       (i) => en1995Resistance(x.d[i] * x.d[i], x.d[i] / Math.sqrt(12), x.length[i], x.fc0k[i], x.e005[i], x.kmod[i], 1.3, 0.2),
     ],
     ["nds", (i) => ndsCapacity(x.d[i] * x.d[i], x.d[i], Math.min(x.length[i], 45 * x.d[i]), x.fcStar[i], x.eMin[i], 0.8)],
+    ["supplier table 1/L²", (i) => interpolateTableInverseSquare(TABLE_L, TABLE_P, 1750 + (x.length[i] % 1750))],
+    ["rhs rounded corners I", (i) => rhsRoundedSecondMoment(x.d[i], x.d[i], 5, 10, 5)],
+    ["punching EN 1992 v_Rd,c", (i) => en1992PunchingStress(100 + (x.d[i] % 200), x.fc0k[i] + 10, 0.005).vRdc],
   ];
 }
 
@@ -156,10 +185,18 @@ export async function benchEngine(): Promise<BenchRow[]> {
   const calc = timeLoop(1500, (i) => {
     const r = calculate(reqs[i & 255]);
     if (r.ok) okCount++;
-    return r.ok ? r.capacityN : 0;
+    return r.ok ? (r.capacityN ?? 0) : 0;
   });
   sink += calc.sink;
   rows.push({ name: "engine calculate() with validation and steps (one core)", value: Math.round(calc.perSecond), unit: "calls/s" });
+  const creqs = checkRequests(x);
+  const checks = timeLoop(1500, (i) => {
+    const r = calculate(creqs[i & 255]);
+    if (r.ok) okCount++;
+    return r.ok ? (r.utilisation ?? r.maxSlabLoadRatio ?? 0) : 0;
+  });
+  sink += checks.sink;
+  rows.push({ name: "engine calculate() checks around a member (plumb, bearing, raker, back-prop)", value: Math.round(checks.perSecond), unit: "calls/s" });
   if (!Number.isFinite(sink) || okCount === 0) throw new Error("bench produced no valid results");
   return rows;
 }

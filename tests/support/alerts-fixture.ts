@@ -16,9 +16,10 @@ import { DEMO_PASSWORD } from "./http";
 let hash: Promise<string> | null = null;
 const ROLES: SiteRole[] = ["manager", "coordinator", "engineer", "supervisor", "designer", "admin"];
 
-/** An invented supplier table (safe working loads read linearly between rows). */
+/** An invented supplier table (read on a 1/L² basis between rows; the 2.0 m row is what members at the default extension read). */
 export const TABLE_STRONG = [
   { lengthMm: 1500, safeLoadN: 40_000 },
+  { lengthMm: 2000, safeLoadN: 35_000 },
   { lengthMm: 2500, safeLoadN: 30_000 },
   { lengthMm: 3500, safeLoadN: 20_000 },
 ];

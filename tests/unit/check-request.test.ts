@@ -31,3 +31,25 @@ describe("buildCheckRequest", () => {
     expect(methodFor(timber, { designCode: "aisc360-asd", unitSystem: "us" }).method).toBe("nds");
   });
 });
+
+describe("a member found out of plumb is re-checked, not just ticked", () => {
+  // Statics: a prop leaning by Δ over its length L stands at θ = asin(Δ/L); 157 mm over 3000 mm is 3.0°,
+  // beyond the 1.5° tolerance within which an EN 1065 class rating applies (common practice, to be confirmed against BS 5975).
+  it("a prop with a measured lean goes to the out-of-plumb check and fails beyond the tolerance", async () => {
+    const { runCheck } = await import("@/lib/register/run-check");
+    const leaning = { ...member, outOfPlumbMm: 157 };
+    const r = buildCheckRequest(prop, leaning, { designCode: "en1993", unitSystem: "si" });
+    expect(r.request).toMatchObject({ method: "out-of-plumb", propClass: "D", outOfPlumbMm: 157, minExtensionMm: 1980, maxExtensionMm: 3350, loadN: 10000 });
+    const outcome = runCheck(prop, leaning, { designCode: "en1993", unitSystem: "si" });
+    expect(outcome.method).toBe("out-of-plumb");
+    expect(outcome.pass).toBe(false);
+    // Plumb (no reading, or zero) keeps the plain EN 1065 check.
+    expect(buildCheckRequest(prop, { ...member, outOfPlumbMm: 0 }, { designCode: "en1993", unitSystem: "si" }).request.method).toBe("en1065");
+  });
+
+  it("a steel member with a measured lean is checked for axial force and the amplified moment in the site's code", () => {
+    const r = buildCheckRequest(steel, { ...member, outOfPlumbMm: 30 }, { designCode: "aisc360-lrfd", unitSystem: "us" });
+    expect(r.request).toMatchObject({ method: "out-of-plumb", plumbCode: "aisc360", designBasis: "lrfd", outOfPlumbMm: 30, loadN: 16000 });
+    expect(buildCheckRequest(steel, { ...member, outOfPlumbMm: 30 }, { designCode: "en1993", unitSystem: "si" }).request).toMatchObject({ plumbCode: "en1993", loadN: 15000 });
+  });
+});

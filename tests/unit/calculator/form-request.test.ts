@@ -54,3 +54,39 @@ describe("formToRequest", () => {
     expect(fieldErrors.length).toBeTruthy();
   });
 });
+
+describe("formToRequest for the checks around a member", () => {
+  it("base bearing in US units: inches, kips, psf and psi", () => {
+    // 1 psf = 0.047 880 26 kPa (NIST SP 811 B.8: 1 lbf/ft² = 47.880 26 Pa)
+    const { request, fieldErrors } = formToRequest(
+      form({ method: "base-bearing", units: "us", length: "", basePlateB: "6", basePlateL: "6", allowablePressure: "2000", load: "5" }),
+    );
+    expect(fieldErrors).toEqual({});
+    expect(request).not.toHaveProperty("lengthMm");
+    expect(request.basePlateBMm).toBeCloseTo(152.4, 9);
+    expect(request.allowablePressureKPa).toBeCloseTo(95.76052, 4);
+    expect(request.loadN).toBeCloseTo(5 * 4448.222, 0);
+    expect(calculate(request).ok).toBe(true);
+  });
+
+  it("back-propping sequence: levels and slab weight, no length and no load", () => {
+    const { request, fieldErrors } = formToRequest(form({ method: "backprop-sequence", length: "", shoredLevels: "3", slabSelfWeight: "6", load: "12" }));
+    expect(fieldErrors).toEqual({});
+    expect(request).toEqual({ method: "backprop-sequence", shoredLevels: 3, slabSelfWeightKPa: 6 });
+  });
+
+  it("out of plumb for an EN 1065 prop leaves the section out; for a steel tube it keeps it", () => {
+    const prop = formToRequest(form({ method: "out-of-plumb", plumbTarget: "prop", length: "3000", propClass: "D", maxExtension: "3350", minExtension: "1980", plumbDeg: "3", load: "10" }));
+    expect(prop.request).toMatchObject({ method: "out-of-plumb", propClass: "D", outOfPlumbDeg: 3, loadN: 10000 });
+    expect(prop.request).not.toHaveProperty("section");
+    const steel = formToRequest(form({ method: "out-of-plumb", length: "3000", shape: "chs", d: "114.3", t: "5", steelGrade: "S355", plumbDeg: "1", eccentricity: "10", load: "100" }));
+    expect(steel.request).toMatchObject({ section: { shape: "chs", dMm: 114.3, tMm: 5 }, steelGrade: "S355", plumbCode: "en1993", eccentricityMm: 10 });
+    expect(calculate(steel.request).ok).toBe(true);
+  });
+
+  it("point braces with no section sizes typed send no section", () => {
+    const { request } = formToRequest(form({ method: "point-brace", length: "6000", braces: "1", load: "100" }));
+    expect(request).not.toHaveProperty("section");
+    expect(calculate(request).ok).toBe(true);
+  });
+});

@@ -1,10 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { aiscFcr, aiscFe, calculate, OMEGA_C, PHI_C, type CalculationSuccess } from "@/lib/engineering";
+import { aiscFcr, aiscFe, calculate, OMEGA_C, PHI_C, type CapacityResult } from "@/lib/engineering";
 import { toMpa } from "@/lib/units";
 
-function ok(r: ReturnType<typeof calculate>): CalculationSuccess {
+function ok(r: ReturnType<typeof calculate>): CapacityResult {
   if (!r.ok) throw new Error(JSON.stringify(r.errors));
-  return r;
+  if (r.capacityN === undefined) throw new Error("The result has no capacity.");
+  return r as CapacityResult;
 }
 
 const KSI = toMpa(1, "ksi");

@@ -1,9 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { calculate, en1993Chi, IMPERFECTION_FACTORS, type CalculationSuccess } from "@/lib/engineering";
+import { calculate, en1993Chi, IMPERFECTION_FACTORS, type CapacityResult } from "@/lib/engineering";
 
-function ok(r: ReturnType<typeof calculate>): CalculationSuccess {
+function ok(r: ReturnType<typeof calculate>): CapacityResult {
   if (!r.ok) throw new Error(JSON.stringify(r.errors));
-  return r;
+  if (r.capacityN === undefined) throw new Error("The result has no capacity.");
+  return r as CapacityResult;
 }
 
 describe("EN 1993-1-1 reduction factor χ", () => {

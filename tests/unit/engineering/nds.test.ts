@@ -1,10 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { calculate, ndsCp, ndsFcE, type CalculationSuccess } from "@/lib/engineering";
+import { calculate, ndsCp, ndsFcE, type CapacityResult } from "@/lib/engineering";
 import { toMpa, toMm } from "@/lib/units";
 
-function ok(r: ReturnType<typeof calculate>): CalculationSuccess {
+function ok(r: ReturnType<typeof calculate>): CapacityResult {
   if (!r.ok) throw new Error(JSON.stringify(r.errors));
-  return r;
+  if (r.capacityN === undefined) throw new Error("The result has no capacity.");
+  return r as CapacityResult;
 }
 const lbf = (n: number) => n / 4.4482216152605;
 
@@ -73,15 +74,36 @@ describe("nds method", () => {
     expect(ok(calculate(base)).warnings.join(" ")).toContain("c = 0.8");
   });
 
-  it("refuses l_e/d over 50 (§3.7.1.4)", () => {
+  it("refuses l_e/d over 50 (§3.7.1.4) for a column that is not temporary", () => {
     // 89 mm post: 50 × 89 = 4450 mm; 4500 mm gives 50.56
-    const r = calculate({ method: "nds", lengthMm: 4500, section: { shape: "rect", bMm: 89, hMm: 140 }, fcStarMpa: 10, eMinMpa: 4000 });
+    const r = calculate({ method: "nds", lengthMm: 4500, section: { shape: "rect", bMm: 89, hMm: 140 }, fcStarMpa: 10, eMinMpa: 4000, duringConstruction: false });
     expect(r.ok).toBe(false);
     if (!r.ok) {
       expect(r.errors[0].field).toBe("lengthMm");
       expect(r.errors[0].message).toContain("over 50");
     }
-    expect(calculate({ method: "nds", lengthMm: 4450, section: { shape: "rect", bMm: 89, hMm: 140 }, fcStarMpa: 10, eMinMpa: 4000 }).ok).toBe(true);
+    expect(calculate({ method: "nds", lengthMm: 4450, section: { shape: "rect", bMm: 89, hMm: 140 }, fcStarMpa: 10, eMinMpa: 4000, duringConstruction: false }).ok).toBe(true);
+  });
+
+  it("during construction (the default for shores) allows l_e/d up to 75 and warns above 50 (NDS 2018 §3.7.1.4)", () => {
+    // NDS 2018 §3.7.1.4: "l_e/d shall not exceed 50, except that during construction l_e/d shall not exceed 75".
+    // 89 mm post: 75 × 89 = 6675 mm. 4500 mm → 50.56 (allowed, warned); 6675 → 75 (allowed); 6700 → 75.28 (refused).
+    const base = { method: "nds", section: { shape: "rect", bMm: 89, hMm: 140 }, fcStarMpa: 10, eMinMpa: 4000 };
+    const warned = ok(calculate({ ...base, lengthMm: 4500 }));
+    expect(warned.slenderness).toBeCloseTo(50.56, 2);
+    expect(warned.warnings.join(" ")).toContain("only during construction");
+    expect(ok(calculate({ ...base, lengthMm: 6675 })).slenderness).toBeCloseTo(75, 9);
+    const refused = calculate({ ...base, lengthMm: 6700 });
+    expect(!refused.ok && refused.errors[0].field).toBe("lengthMm");
+    expect(!refused.ok && refused.errors[0].message).toContain("over 75");
+    expect(ok(calculate({ ...base, lengthMm: 4000 })).warnings.join(" ")).not.toContain("only during construction");
+  });
+
+  it("pinned at one end, rotation fixed and free to sway at the other: K_e = 2.4 from NDS Appendix G Table G1 (AISC gives 2.0)", () => {
+    // NDS 2018 Appendix G Table G1, case (f): recommended design K_e = 2.40.
+    const r = ok(calculate({ method: "nds", lengthMm: 1000, ends: "pinned-sway", section: { shape: "rect", bMm: 89, hMm: 140 }, fcStarMpa: 10, eMinMpa: 4000 }));
+    expect(r.effectiveLengthMm).toBeCloseTo(2400, 9);
+    expect(r.steps.map((s) => s.source).join(" ")).toContain("NDS 2018 Appendix G Table G1");
   });
 
   it("needs F_c* and E_min' and a solid section", () => {

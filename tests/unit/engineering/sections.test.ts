@@ -23,8 +23,8 @@ describe("section properties", () => {
     expect(p.iMinMm4 / 2_570_000).toBeCloseTo(1, 2);
   });
 
-  it("RHS uses square corners and the least axis", () => {
-    const p = sectionProperties({ shape: "rhs", bMm: 100, hMm: 50, tMm: 4 });
+  it("RHS with square corners (outside radius 0 given) and the least axis", () => {
+    const p = sectionProperties({ shape: "rhs", bMm: 100, hMm: 50, tMm: 4, cornerRadiusMm: 0 });
     // By hand: A = 100·50 − 92·42 = 5000 − 3864 = 1136 mm²
     expect(p.areaMm2).toBeCloseTo(1136, 6);
     // Major: (50·100³ − 42·92³)/12 = (50 000 000 − 32 704 896)/12 = 1 441 258.7 mm⁴
@@ -35,6 +35,29 @@ describe("section properties", () => {
     // Square corners overstate the real (rounded-corner) section: EN 10219-2 100×50×4 has A ≈ 10.9 cm² (from memory).
     expect(p.areaMm2).toBeGreaterThan(1090);
     expect(p.areaMm2 / 1090).toBeLessThan(1.05);
+  });
+
+  it("RHS by default uses the EN 10219-2 corner radii (cold-formed) and matches the tabulated values", () => {
+    // EN 10219-2 cold-formed SHS 100 × 100 × 5: A = 18.4 cm², I = 271 cm⁴ (product tables, from memory;
+    // SCI/Tata "Blue Book" cold-formed SHS). r_o = 2t = 10 mm, r_i = t = 5 mm.
+    // A = 2·5·(200 − 10) − (4 − π)(100 − 25) = 1900 − 64.38 = 1835.6 mm².
+    const p = sectionProperties({ shape: "rhs", bMm: 100, hMm: 100, tMm: 5 });
+    expect(p.areaMm2).toBeCloseTo(1835.6, 1);
+    expect(p.areaMm2 / 1840).toBeCloseTo(1, 2);
+    expect(p.iMinMm4 / 2_710_000).toBeCloseTo(1, 2);
+    // Square corners would give A = 1900 mm² and I = (100⁴ − 90⁴)/12 = 2 865 833 mm⁴: 5.7 % too stiff.
+    const square = sectionProperties({ shape: "rhs", bMm: 100, hMm: 100, tMm: 5, cornerRadiusMm: 0 });
+    expect(square.iMinMm4 / p.iMinMm4).toBeGreaterThan(1.05);
+    // EN 10219-2 cold-formed RHS 100 × 50 × 4: A = 10.9 cm² (from memory). r_o = 8, r_i = 4: 1136 − 0.8584 × 48 = 1094.8 mm².
+    expect(sectionProperties({ shape: "rhs", bMm: 100, hMm: 50, tMm: 4 }).areaMm2).toBeCloseTo(1094.8, 1);
+  });
+
+  it("RHS hot-finished uses the EN 10210-2 radii (r_o = 1.5t, r_i = t)", () => {
+    // EN 10210-2 hot-finished SHS 100 × 100 × 5: A = 18.7 cm², I = 279 cm⁴ (product tables, from memory).
+    // A = 1900 − (4 − π)(56.25 − 25) = 1900 − 26.83 = 1873.2 mm²
+    const p = sectionProperties({ shape: "rhs", bMm: 100, hMm: 100, tMm: 5 }, "hot-finished");
+    expect(p.areaMm2).toBeCloseTo(1873.2, 1);
+    expect(p.iMinMm4 / 2_790_000).toBeCloseTo(1, 2);
   });
 
   it("solid rectangle and round", () => {

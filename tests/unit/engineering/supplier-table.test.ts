@@ -1,9 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { calculate, interpolateTable, type CalculationSuccess } from "@/lib/engineering";
+import { calculate, interpolateTable, type CapacityResult } from "@/lib/engineering";
 
-function ok(r: ReturnType<typeof calculate>): CalculationSuccess {
+function ok(r: ReturnType<typeof calculate>): CapacityResult {
   if (!r.ok) throw new Error(JSON.stringify(r.errors));
-  return r;
+  if (r.capacityN === undefined) throw new Error("The result has no capacity.");
+  return r as CapacityResult;
 }
 
 const table = [
@@ -14,11 +15,16 @@ const table = [
 ];
 
 describe("supplier table interpolation", () => {
-  it("linear interpolation by hand", () => {
-    // Between 2500 mm (27 000 N) and 3000 mm (22 000 N) at 2800 mm:
-    // 27 000 + (2800 − 2500)/(3000 − 2500) × (22 000 − 27 000) = 27 000 − 0.6 × 5000 = 24 000 N
+  it("interpolation linear in 1/L² by hand, below the straight line", () => {
+    // Between 2500 mm (27 000 N) and 3000 mm (22 000 N) at 2800 mm. A straight line would give
+    // 27 000 + (2800 − 2500)/(3000 − 2500) × (22 000 − 27 000) = 24 000 N, which overstates a capacity that
+    // falls with 1/L² (Euler; Timoshenko & Gere §2.2). Linear in u = 1/L²:
+    // u₁ = 1/2500² = 1.6e-7, u₂ = 1/3000² = 1.11111e-7, u = 1/2800² = 1.27551e-7
+    // t = (1.6 − 1.27551)/(1.6 − 1.11111) = 0.663730; 27 000 − 0.663730 × 5000 = 23 681.4 N
     const r = ok(calculate({ method: "supplier-table", lengthMm: 2800, table }));
-    expect(r.capacityN).toBeCloseTo(24000, 9);
+    expect(r.capacityN).toBeCloseTo(23681.35, 1);
+    expect(r.capacityN).toBeLessThan(24000);
+    expect(r.steps.map((s) => s.label).join(" ")).toContain("1/L²");
     expect(r.basis).toBe("safe-working-load");
     expect(r.warnings).toEqual([]);
   });
@@ -30,8 +36,19 @@ describe("supplier table interpolation", () => {
   it("sorts rows given out of order", () => {
     const shuffled = [table[2], table[0], table[3], table[1]];
     const r = ok(calculate({ method: "supplier-table", lengthMm: 2800, table: shuffled }));
-    expect(r.capacityN).toBeCloseTo(24000, 9);
+    expect(r.capacityN).toBeCloseTo(23681.35, 1);
     expect(String(r.steps[0].label)).toContain("sorted");
+  });
+
+  it("a table that follows the Euler curve exactly is read exactly between rows", () => {
+    // P = C/L² with C = 1e11 N·mm²: rows 2000 mm → 25 000 N and 4000 mm → 6250 N; at 3000 mm the curve gives 11 111.1 N.
+    const euler = [{ lengthMm: 2000, safeLoadN: 25000 }, { lengthMm: 4000, safeLoadN: 6250 }];
+    expect(ok(calculate({ method: "supplier-table", lengthMm: 3000, table: euler })).capacityN).toBeCloseTo(1e11 / 9e6, 6);
+  });
+
+  it("lower-row option takes the lower of the two rows", () => {
+    const r = ok(calculate({ method: "supplier-table", lengthMm: 2800, table, supplierInterpolation: "lower-row" }));
+    expect(r.capacityN).toBe(22000);
   });
 
   it("core returns NaN outside so callers must range-check", () => {

@@ -7,7 +7,7 @@ import { useForm, type UseFormRegister } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
 import { fieldForPath, formToRequest, unitLabels } from "@/lib/calculator/form-request";
-import { calculate, capacityCurve, END_CONDITIONS, METHODS, STEEL_GRADES, TIMBER_CLASSES } from "@/lib/engineering";
+import { calculate, capacityCurve, CHECK_METHODS, END_CONDITIONS, METHODS, SOILS, STEEL_GRADES, TIMBER_CLASSES } from "@/lib/engineering";
 import type { CalculationResult, MethodId } from "@/lib/engineering";
 import { CALCULATOR_DEFAULTS, calculatorFormSchema, type CalculatorForm } from "@/lib/validations/calculator";
 import { CapacityChart } from "@/components/capacity-chart";
@@ -15,7 +15,10 @@ import { ResultView } from "./result-view";
 
 type Props = { defaultUnits: "si" | "us"; defaultDesignCode: "en1993" | "aisc360-lrfd" | "aisc360-asd" };
 
-const SECTION_METHODS: MethodId[] = ["euler", "en1993", "aisc360-lrfd", "aisc360-asd", "en1995", "nds", "point-brace"];
+const SECTION_METHODS: MethodId[] = ["euler", "en1993", "aisc360-lrfd", "aisc360-asd", "en1995", "nds", "point-brace", "out-of-plumb", "raking-combined"];
+const STEEL_METHODS: MethodId[] = ["en1993", "aisc360-lrfd", "aisc360-asd", "out-of-plumb", "raking-combined"];
+const ALL_METHODS = [...METHODS, ...CHECK_METHODS];
+const CURVE_METHODS: string[] = METHODS.map((m) => m.id);
 
 export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
   const [outcome, setOutcome] = useState<{ result: CalculationResult; request: Record<string, unknown>; units: "si" | "us" } | null>(null);
@@ -35,7 +38,12 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
   const units = watch("units");
   const shape = watch("shape");
   const u = unitLabels(units);
-  const info = METHODS.find((m) => m.id === method)!;
+  const plumbTarget = watch("plumbTarget");
+  const checkCode = watch("checkCode");
+  const info = ALL_METHODS.find((m) => m.id === method)!;
+  const plumbProp = method === "out-of-plumb" && plumbTarget === "prop";
+  const showSection = SECTION_METHODS.includes(method) && !plumbProp;
+  const lengthless = method === "base-bearing" || method === "backprop-sequence";
   const shapes = info.sectionShapes;
 
   const onSubmit = handleSubmit((values) => {
@@ -63,6 +71,7 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
   const curve = useMemo(() => {
     if (!outcome || !outcome.result.ok) return null;
     const req = outcome.request;
+    if (!CURVE_METHODS.includes(String(req.method))) return null;
     const L = req.lengthMm as number;
     let from = L * 0.5;
     let to = L * 1.5;
@@ -86,11 +95,20 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-xl border-2 border-ink/15 bg-paper-raised p-4" aria-label="Calculation inputs">
         <Field id="method" label="Method" hint={info.description}>
           <select id="method" className={inputClass} {...register("method")}>
-            {METHODS.map((m) => (
-              <option key={m.id} value={m.id}>
-                {m.label}
-              </option>
-            ))}
+            <optgroup label="Member capacity">
+              {METHODS.map((m) => (
+                <option key={m.id} value={m.id}>
+                  {m.label}
+                </option>
+              ))}
+            </optgroup>
+            <optgroup label="Checks around the member">
+              {CHECK_METHODS.map((m) => (
+                <option key={m.id} value={m.id}>
+                  {m.label}
+                </option>
+              ))}
+            </optgroup>
           </select>
         </Field>
         <fieldset className="flex gap-2" aria-label="Units">
@@ -102,11 +120,35 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
             </label>
           ))}
         </fieldset>
-        <Text id="length" label={method === "en1065" || method === "supplier-table" ? `Extension (${u.length})` : `Length between restraints (${u.length})`} reg={register} error={errors.length?.message} hint={units === "us" ? `e.g. 9' 6" or 114 in` : "e.g. 2850 or 2.85 m"} />
+        {method === "out-of-plumb" ? (
+          <Field id="plumbTarget" label="Member">
+            <select id="plumbTarget" className={inputClass} {...register("plumbTarget")}>
+              <option value="steel">Steel tube or section</option>
+              <option value="prop">EN 1065 adjustable prop</option>
+            </select>
+          </Field>
+        ) : null}
+        {!lengthless ? (
+          <Text
+            id="length"
+            label={method === "en1065" || method === "supplier-table" || plumbProp ? `Extension (${u.length})` : method === "raking-combined" ? `Raker length head to foot (${u.length})` : `Length between restraints (${u.length})`}
+            reg={register}
+            error={errors.length?.message}
+            hint={units === "us" ? `e.g. 9' 6" or 114 in` : "e.g. 2850 or 2.85 m"}
+          />
+        ) : null}
+        {["out-of-plumb", "raking-combined"].includes(method) && !plumbProp ? (
+          <Field id="checkCode" label="Design code">
+            <select id="checkCode" className={inputClass} {...register("checkCode")}>
+              <option value="en1993">EN 1993-1-1 §6.3.3</option>
+              <option value="aisc360">AISC 360-16 §H1</option>
+            </select>
+          </Field>
+        ) : null}
 
-        {SECTION_METHODS.includes(method) ? (
+        {showSection ? (
           <>
-            <Field id="ends" label="End conditions" hint="Recommended design K values (AISC 360-16 Commentary Table C-A-7.1) unless you give K.">
+            <Field id="ends" label="End conditions" hint="Recommended design K from the method's own code (AISC Table C-A-7.1, NDS Appendix G, BS 5950-1 / BS 5268-2 practice for Eurocodes) unless you give K.">
               <select id="ends" className={inputClass} {...register("ends")}>
                 <option value="">Both ends pinned (default)</option>
                 {END_CONDITIONS.map((e) => (
@@ -143,7 +185,7 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
           </>
         ) : null}
 
-        {["en1993", "aisc360-lrfd", "aisc360-asd"].includes(method) ? (
+        {STEEL_METHODS.includes(method) && !plumbProp ? (
           <>
             <Field id="steelGrade" label="Steel grade" hint="Or type fy below to override.">
               <select id="steelGrade" className={inputClass} {...register("steelGrade")}>
@@ -156,6 +198,76 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
               </select>
             </Field>
             <Text id="fy" label={`Yield strength fy (${u.stress})`} reg={register} error={errors.fy?.message} />
+            {(method.startsWith("aisc") || (STEEL_METHODS.includes(method) && checkCode === "aisc360")) && (shape === "chs" || shape === "rhs") ? (
+              <Field id="hssWeld" label="Tube welding" hint="AISC 360-16 §B4.2: design wall 0.93t for ERW, 1.0t for submerged-arc welded.">
+                <select id="hssWeld" className={inputClass} {...register("hssWeld")}>
+                  <option value="">Electric-resistance welded (default)</option>
+                  <option value="erw">Electric-resistance welded</option>
+                  <option value="saw">Submerged-arc welded</option>
+                </select>
+              </Field>
+            ) : null}
+          </>
+        ) : null}
+        {["out-of-plumb", "raking-combined"].includes(method) && !plumbProp && checkCode === "en1993" ? (
+          <Field id="formed" label="How the section was made" hint="Chooses the buckling curve (EN 1993-1-1 Table 6.2) and the corner radii.">
+            <select id="formed" className={inputClass} {...register("formed")}>
+              <option value="">Not stated</option>
+              <option value="hot-finished">Hot-finished</option>
+              <option value="cold-formed">Cold-formed</option>
+            </select>
+          </Field>
+        ) : null}
+        {method === "out-of-plumb" ? (
+          <>
+            <Text id="plumbDeg" label="Out of plumb, angle (degrees)" reg={register} error={errors.plumbDeg?.message} hint="From the inspection, e.g. 3. Or give the offset below." />
+            <Text id="plumbOffset" label={`Out of plumb, offset of head over base (${u.dim})`} reg={register} error={errors.plumbOffset?.message} />
+          </>
+        ) : null}
+        {["out-of-plumb", "raking-combined"].includes(method) ? (
+          <Text id="eccentricity" label={`Load eccentricity at the ends (${u.dim}, optional)`} reg={register} error={errors.eccentricity?.message} />
+        ) : null}
+        {method === "raking-combined" ? (
+          <>
+            <Text id="angle" label="Raker angle from horizontal (degrees)" reg={register} error={errors.angle?.message} />
+            <Text id="selfWeight" label={`Self-weight (${u.lineLoad}, optional)`} reg={register} error={errors.selfWeight?.message} hint="Taken from the steel area when left empty." />
+          </>
+        ) : null}
+        {method === "base-bearing" ? (
+          <>
+            <Text id="basePlateB" label={`Base plate width (${u.dim})`} reg={register} error={errors.basePlateB?.message} />
+            <Text id="basePlateL" label={`Base plate length (${u.dim})`} reg={register} error={errors.basePlateL?.message} />
+            <Text id="solePlateB" label={`Sole plate width (${u.dim}, optional)`} reg={register} error={errors.solePlateB?.message} />
+            <Text id="solePlateL" label={`Sole plate length (${u.dim}, optional)`} reg={register} error={errors.solePlateL?.message} />
+            <Text id="solePlateT" label={`Sole plate thickness (${u.dim}, optional)`} reg={register} error={errors.solePlateT?.message} />
+            <Field id="soil" label="Ground" hint="Presumptive values for a first check (common practice); a site investigation governs.">
+              <select id="soil" className={inputClass} {...register("soil")}>
+                <option value="">— typed pressure or slab below —</option>
+                {Object.entries(SOILS).map(([id, s]) => (
+                  <option key={id} value={id}>
+                    {s.label} ({units === "us" ? `${Math.round(s.kPa / 0.04788)} psf` : `${s.kPa} kPa`})
+                  </option>
+                ))}
+              </select>
+            </Field>
+            <Text id="allowablePressure" label={`Allowable bearing pressure (${u.pressure}, optional)`} reg={register} error={errors.allowablePressure?.message} />
+            <Text id="slabEffDepth" label={`Slab below: effective depth d (${u.dim}, back-props only)`} reg={register} error={errors.slabEffDepth?.message} />
+            <Text id="fck" label={`Slab concrete strength f_ck / f'c (${u.concrete})`} reg={register} error={errors.fck?.message} />
+            <Field id="punchingCode" label="Punching check">
+              <select id="punchingCode" className={inputClass} {...register("punchingCode")}>
+                <option value="en1992">EN 1992-1-1 §6.4</option>
+                <option value="aci318">ACI 318-19 §22.6</option>
+              </select>
+            </Field>
+          </>
+        ) : null}
+        {method === "backprop-sequence" ? (
+          <>
+            <Text id="shoredLevels" label="Levels of props in use at once (1–6)" reg={register} error={errors.shoredLevels?.message} />
+            <Text id="slabSelfWeight" label={`Slab self-weight (${u.pressure})`} reg={register} error={errors.slabSelfWeight?.message} />
+            <Text id="formworkLoad" label={`Formwork self-weight (${u.pressure}, optional)`} reg={register} error={errors.formworkLoad?.message} />
+            <Text id="constructionLoad" label={`Construction load while casting (${u.pressure}, optional)`} reg={register} error={errors.constructionLoad?.message} />
+            <Text id="cycles" label="Casting cycles to follow (optional)" reg={register} error={errors.cycles?.message} />
           </>
         ) : null}
         {method === "en1993" ? (
@@ -213,7 +325,7 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
             </Field>
           </>
         ) : null}
-        {method === "en1065" ? (
+        {method === "en1065" || plumbProp ? (
           <>
             <Field id="propClass" label="EN 1065 class">
               <select id="propClass" className={inputClass} {...register("propClass")}>
@@ -225,8 +337,16 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
               </select>
             </Field>
             <Text id="maxExtension" label={`Maximum extension (${u.dim})`} reg={register} error={errors.maxExtension?.message} />
-            <Text id="minExtension" label={`Minimum extension (${u.dim}, optional)`} reg={register} error={errors.minExtension?.message} />
+            <Text id="minExtension" label={`Minimum extension (${u.dim}, as marked on the prop)`} reg={register} error={errors.minExtension?.message} />
           </>
+        ) : null}
+        {method === "supplier-table" ? (
+          <Field id="supplierInterpolation" label="Between rows" hint="Capacity falls with about 1/L², so a straight line between rows would overstate it.">
+            <select id="supplierInterpolation" className={inputClass} {...register("supplierInterpolation")}>
+              <option value="inverse-square">Interpolate linearly in 1/L²</option>
+              <option value="lower-row">Take the lower row</option>
+            </select>
+          </Field>
         ) : null}
         {method === "supplier-table" ? (
           <Field id="table" label={`Supplier table: one row per line, "length (${u.dim}), safe load (${u.force})"`} error={errors.table?.message}>
@@ -252,13 +372,15 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
             </Field>
           </>
         ) : null}
-        <Text
-          id="load"
-          label={`Load to compare (${u.force}${method === "point-brace" ? ", required" : ", optional"})`}
-          reg={register}
-          error={errors.load?.message}
-          hint={loadHint(info.basis)}
-        />
+        {method !== "backprop-sequence" ? (
+          <Text
+            id="load"
+            label={`Load to compare (${u.force}${["point-brace", "out-of-plumb", "base-bearing", "raking-combined"].includes(method) ? ", required" : ", optional"})`}
+            reg={register}
+            error={errors.load?.message}
+            hint={loadHint(info.basis)}
+          />
+        ) : null}
         {formError ? (
           <p role="alert" className="rounded-lg border-2 border-bad bg-bad-soft p-3 font-semibold text-bad">
             <Icon name="bad" className="mr-1 inline h-5 w-5 align-text-bottom" />
@@ -289,6 +411,8 @@ function loadHint(basis: string) {
   if (basis === "available-strength") return "A factored (LRFD) load: this method gives the design strength φcPn.";
   if (basis === "allowable-strength") return "A working (unfactored) load: this method gives an allowable strength.";
   if (basis === "safe-working-load") return "A working (unfactored) load: this method gives a safe working load.";
+  if (basis === "bearing-resistance") return "The load on the base: working load for ground bearing, design (factored) load for punching of a slab.";
+  if (basis === "brace-requirement") return "The member's required axial strength: the braces are sized from it.";
   return "The load to compare with the elastic critical load (no safety margin).";
 }
 

@@ -9,6 +9,9 @@ const BASIS_WORDS: Record<string, string> = {
   "available-strength": "Available strength (LRFD)",
   "allowable-strength": "Allowable strength (ASD)",
   "safe-working-load": "Safe working load",
+  "bearing-resistance": "Load at which the governing bearing check reaches 1",
+  "brace-requirement": "Brace requirement",
+  "load-ratio": "Load ratios",
 };
 
 function fmtValue(v: number | string) {
@@ -20,16 +23,18 @@ function fmtValue(v: number | string) {
 
 export function ResultView({ result, units }: { result: CalculationSuccess; units: "si" | "us" }) {
   const fu = units === "us" ? "kip" : "kN";
-  const cap = fromN(result.capacityN, fu);
+  const cap = result.capacityN !== undefined ? fromN(result.capacityN, fu) : undefined;
   return (
     <section aria-label="Result" className="flex flex-col gap-4">
       <div className="grid gap-3 sm:grid-cols-3">
-        <div className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4">
-          <p className="text-sm font-semibold text-ink-soft">{BASIS_WORDS[result.basis]}</p>
-          <p className="tabular text-3xl font-bold" data-testid="capacity">
-            {cap.toFixed(1)} {fu}
-          </p>
-        </div>
+        {cap !== undefined ? (
+          <div className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4">
+            <p className="text-sm font-semibold text-ink-soft">{BASIS_WORDS[result.basis]}</p>
+            <p className="tabular text-3xl font-bold" data-testid="capacity">
+              {cap.toFixed(1)} {fu}
+            </p>
+          </div>
+        ) : null}
         {result.utilisation !== undefined ? (
           <div className="rounded-xl border-2 border-ink/15 bg-paper-raised p-4">
             <p className="text-sm font-semibold text-ink-soft">Utilisation</p>
@@ -49,6 +54,61 @@ export function ResultView({ result, units }: { result: CalculationSuccess; unit
         ) : null}
       </div>
       <p className="text-sm">{result.loadBasis}</p>
+      {result.checks?.length ? (
+        <div className="overflow-x-auto rounded-xl border-2 border-ink/15 bg-paper-raised">
+          <table className="w-full text-left text-sm" data-testid="checks">
+            <caption className="p-3 text-left text-base font-bold">Checks</caption>
+            <thead className="bg-paper-sunk">
+              <tr>
+                <th scope="col" className="p-2">Check</th>
+                <th scope="col" className="p-2 text-right">Demand</th>
+                <th scope="col" className="p-2 text-right">Resistance</th>
+                <th scope="col" className="p-2">Unit</th>
+                <th scope="col" className="p-2 text-right">Utilisation</th>
+                <th scope="col" className="p-2">Source</th>
+              </tr>
+            </thead>
+            <tbody>
+              {result.checks.map((c) => (
+                <tr key={c.name} className="border-t border-ink/10 align-top">
+                  <td className="p-2">{c.name}</td>
+                  <td className="tabular p-2 text-right">{fmtValue(c.demand)}</td>
+                  <td className="tabular p-2 text-right">{fmtValue(c.resistance)}</td>
+                  <td className="p-2">{c.unit}</td>
+                  <td className={`tabular p-2 text-right font-bold ${c.utilisation > 1 ? "text-bad" : ""}`}>{(c.utilisation * 100).toFixed(0)} %</td>
+                  <td className="p-2 text-ink-soft">{c.source}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      ) : null}
+      {result.stages?.length ? (
+        <div className="overflow-x-auto rounded-xl border-2 border-ink/15 bg-paper-raised">
+          <p className="p-3 text-base font-bold" data-testid="max-slab-ratio">
+            Largest slab load {fmtValue(result.maxSlabLoadRatio ?? 0)} × self-weight · largest prop level load {fmtValue(result.maxPropLoadRatio ?? 0)} × self-weight
+          </p>
+          <table className="w-full text-left text-sm" data-testid="stages">
+            <caption className="sr-only">Loads at each stage, newest slab first</caption>
+            <thead className="bg-paper-sunk">
+              <tr>
+                <th scope="col" className="p-2">Stage</th>
+                <th scope="col" className="p-2">Slab loads (newest first)</th>
+                <th scope="col" className="p-2">Prop level loads (top first)</th>
+              </tr>
+            </thead>
+            <tbody>
+              {result.stages.map((st, i) => (
+                <tr key={i} className="border-t border-ink/10 align-top">
+                  <td className="p-2">{st.label}</td>
+                  <td className="tabular p-2">{st.slabLoadRatios.map((x) => x.toFixed(2)).join(" · ") || "—"}</td>
+                  <td className="tabular p-2">{st.propLoadRatios.map((x) => x.toFixed(2)).join(" · ") || "—"}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      ) : null}
       {result.requiredStiffnessNPerMm !== undefined ? (
         <dl className="grid gap-2 rounded-xl border-2 border-ink/15 bg-paper-raised p-4 sm:grid-cols-3">
           <div>
