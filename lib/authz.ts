@@ -1,13 +1,12 @@
-// The one answer to "may this user do this on this site?". Every handler and action asks it.
+// Site access for pages (lib/auth/site-page.ts): the site and the roles held there, or 404. Route
+// handlers get the same answer through the seam (lib/api/route.ts and lib/api/resources.ts).
 import "server-only";
 import { getSiteAccessRow } from "@/db/queries/sites";
-import { ARCHIVED_SITE_PERMISSIONS, rolesAllowPure, type PermissionName } from "@/lib/permissions";
+import type { PermissionName } from "@/lib/permissions";
 import type { SessionUser } from "@/lib/auth";
-import { ConflictError, ForbiddenError, NotFoundError } from "@/lib/errors";
+import { NotFoundError } from "@/lib/errors";
 
-export { ALL_ROLES, PERMISSIONS, ROLE_LABELS } from "@/lib/permissions";
 export type Permission = PermissionName;
-export const rolesAllow = rolesAllowPure;
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 export function isUuid(value: unknown): value is string {
@@ -22,14 +21,5 @@ export async function getSiteAccess(user: SessionUser, siteId: string) {
   if (!isUuid(siteId)) throw new NotFoundError("That site");
   const access = await getSiteAccessRow({ siteId, user });
   if (!access || access.roles.length === 0) throw new NotFoundError("That site");
-  return access;
-}
-
-/** Throws 404 for no access and 403 when the user's roles do not include the permission. */
-export async function assertSitePermission(user: SessionUser, siteId: string, permission: Permission) {
-  const access = await getSiteAccess(user, siteId);
-  if (!rolesAllow(access.roles, permission)) throw new ForbiddenError();
-  if (access.site.archivedAt && !ARCHIVED_SITE_PERMISSIONS.includes(permission))
-    throw new ConflictError("This site is archived and read-only. An organisation admin can restore it from the site's settings.");
   return access;
 }

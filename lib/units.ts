@@ -36,9 +36,6 @@ export const fromMpa = (mpa: number, unit: StressUnit): number => mpa / STRESS_T
 export const toKnPerM2 = (value: number, unit: PressureUnit): number => value * PRESSURE_TO_KNM2[unit];
 export const fromKnPerM2 = (knm2: number, unit: PressureUnit): number => knm2 / PRESSURE_TO_KNM2[unit];
 
-export const kNToN = (kn: number): number => kn * N_PER_KN;
-export const nToKn = (n: number): number => n / N_PER_KN;
-
 export type ParseResult = { ok: true; value: number } | { ok: false; message: string };
 
 const NUMBER = String.raw`[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?`;

@@ -12,7 +12,7 @@ const p = profile("test");
 // `npm test -- unit` or `-- e2e` runs one part; a path narrows it to those files, e.g.
 // `npm test -- integration tests/integration/permits-issue.test.ts`.
 const args = process.argv.slice(2);
-const only = args.filter((a) => ["unit", "integration", "e2e"].includes(a));
+const only = args.filter((a) => ["checks", "unit", "integration", "e2e"].includes(a));
 const files = (part) => args.filter((a) => a.includes(`tests/${part}/`));
 const want = (part) => only.length === 0 || only.includes(part);
 
@@ -94,6 +94,13 @@ function summary() {
 }
 
 try {
+  // House habits first (a whole run only, or `npm test -- checks`): types, lint with zero errors,
+  // and no dead code, dependencies or exports (knip).
+  if (only.length === 0 || only.includes("checks")) {
+    step("typecheck (tsc --noEmit)", bin("tsc"), ["--noEmit"]);
+    step("lint (ESLint, errors fail)", bin("eslint"), [".", "--quiet"]);
+    step("dead code (knip)", bin("knip"), []);
+  }
   if (want("unit")) step("unit tests", bin("vitest"), ["run", "--project", "unit", ...vitestReport("unit"), ...files("unit")]);
   const built = !(want("integration") || want("e2e")) || !needsBuild(p.distDir) || step(`build (${p.distDir})`, bin("next"), ["build"]);
   if (!built) throw new Error("the app did not build; integration and end-to-end tests were not run");

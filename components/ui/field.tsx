@@ -1,4 +1,4 @@
-import type { ComponentProps, ReactNode } from "react";
+import type { ReactNode } from "react";
 
 /** A labelled input with its error announced and linked through aria-describedby. */
 export function Field({
@@ -26,14 +26,6 @@ export function Field({
 
 export const inputClass =
   "min-h-touch w-full rounded-lg border-2 border-ink/40 bg-paper-raised px-3 py-2 text-base text-ink placeholder:text-ink-faint focus:border-brand aria-[invalid=true]:border-bad";
-
-export function Input(props: ComponentProps<"input">) {
-  return <input className={inputClass} {...props} />;
-}
-
-export function Select(props: ComponentProps<"select">) {
-  return <select className={inputClass} {...props} />;
-}
 
 export function describedBy(id: string, error?: string, hint?: boolean) {
   return error ? `${id}-error` : hint ? `${id}-hint` : undefined;

@@ -104,8 +104,3 @@ export async function renewInvitation(
     .returning(columns);
   return row as InvitationRow;
 }
-
-/** For tests and support: moves an invitation's expiry (e.g. to prove an expired link is refused). */
-export async function setInvitationExpiry({ invitationId, expiresAt }: { invitationId: string; expiresAt: Date }, tx: DbOrTx = db) {
-  await tx.update(invitations).set({ expiresAt }).where(eq(invitations.id, invitationId));
-}

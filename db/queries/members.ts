@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq, inArray, sql } from "drizzle-orm";
+import { and, eq, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db, type DbOrTx } from "@/db";
 import { members, memberTypes, schemes, sites, users, zones, type Member, type NewMember } from "@/db/schema";
@@ -136,10 +136,4 @@ export async function setLatestChecks(
       from (values ${values}) as v(member_id, check_id, capacity_n, utilisation, pass)
       where m.id = v.member_id`);
   }
-}
-
-export async function countMembersByIds({ siteId, ids }: { siteId: string; ids: string[] }, tx: DbOrTx = db) {
-  if (ids.length === 0) return 0;
-  const rows = await tx.select({ id: members.id }).from(members).where(and(eq(members.siteId, siteId), inArray(members.id, ids)));
-  return rows.length;
 }

@@ -40,8 +40,3 @@ export async function markPasswordResetsUsed({ userId }: { userId: string }, tx:
     .set({ usedAt: sql`now()` })
     .where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
 }
-
-/** For tests and support: moves a reset's expiry. */
-export async function setPasswordResetExpiry({ tokenHash, expiresAt }: { tokenHash: string; expiresAt: Date }, tx: DbOrTx = db) {
-  await tx.update(passwordResets).set({ expiresAt }).where(eq(passwordResets.tokenHash, tokenHash));
-}

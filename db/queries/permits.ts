@@ -287,14 +287,6 @@ export async function unloadMembersOfExpiredPermit({ permitId, now }: { permitId
   return rows.map((r) => ({ id: r.id, tag: r.tag }));
 }
 
-export async function countPermitMembers({ permitId }: { permitId: string }, tx: DbOrTx = db) {
-  const [row] = await tx
-    .select({ n: sql<number>`count(*)::int` })
-    .from(permitMembers)
-    .where(and(eq(permitMembers.permitId, permitId), isNull(permitMembers.removedAt)));
-  return row?.n ?? 0;
-}
-
 /**
  * Takes the member out of the scope of every issued permit that still covers it and returns those
  * permits (with their recipients) so they can be told.

@@ -1,7 +1,7 @@
 // Route-handler plumbing: one error shape ({ error: { code, message, fields? } }) and status.
 import "server-only";
 import { NextResponse } from "next/server";
-import { AppError, errorBody, ValidationError } from "@/lib/errors";
+import { AppError, errorBody } from "@/lib/errors";
 
 type Ctx<P> = { params: Promise<P> };
 
@@ -51,19 +51,6 @@ export function isDatabaseUnavailable(e: unknown): boolean {
 
 function describe(e: unknown) {
   return e instanceof Error ? `${e.name}: ${e.message}` : String(e);
-}
-
-/** Reads a JSON body; anything that is not a JSON object is a 422 with a clear reason. */
-export async function readJson(req: Request): Promise<Record<string, unknown>> {
-  let body: unknown;
-  try {
-    body = await req.json();
-  } catch {
-    throw new ValidationError({ _: "The request body must be JSON." }, "The request body must be JSON.");
-  }
-  if (!body || typeof body !== "object" || Array.isArray(body))
-    throw new ValidationError({ _: "The request body must be a JSON object." }, "The request body must be a JSON object.");
-  return body as Record<string, unknown>;
 }
 
 export function created(body: unknown) {

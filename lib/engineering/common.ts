@@ -114,8 +114,3 @@ export function resolveSteelFy(
   }
   return { ok: true, value: { fyMpa: fy, steps: [step(label, "f_y", fy, "MPa", grade.source)], warnings } };
 }
-
-export function slendernessSteps(lcrMm: number, rMinMm: number): { lambda: number; steps: Step[] } {
-  const lambda = lcrMm / rMinMm;
-  return { lambda, steps: [step("Slenderness ratio L_cr/i", "λ", lambda, "", "Definition")] };
-}

@@ -1,5 +1,5 @@
 export { calculate, capacityCurve, type CurvePoint } from "./calculate";
-export { METHODS, CHECK_METHODS, methodInfo, type MethodInfo } from "./methods";
+export { METHODS, CHECK_METHODS, type MethodInfo } from "./methods";
 export { ENGINE_VERSION } from "./version";
 export { END_CONDITIONS, effectiveLength, type EndConditionInfo } from "./effective-length";
 export {
@@ -8,10 +8,6 @@ export {
   KMOD,
   GAMMA_M_TIMBER,
   BETA_C,
-  NDS_C,
-  E_STEEL_EN_MPA,
-  E_STEEL_AISC_MPA,
-  findSteelGrade,
   findTimberClass,
   type SteelGrade,
   type TimberClass,
@@ -20,7 +16,6 @@ export { sectionProperties, type SectionProperties } from "./sections";
 export { calculateRakingShore, rakingShoreGeometry, type RakingShoreGeometry, type RakingShoreResult } from "./raking-shore";
 export {
   calculateSlabLoad,
-  slabLoadPerMember,
   workingAreaConstructionLoad,
   falseworkWorkingAreaLoad,
   type SlabLoadBreakdown,
@@ -30,14 +25,14 @@ export {
 export { eulerLoad } from "./euler";
 export { en1993Chi, en1993BucklingResistance, IMPERFECTION_FACTORS } from "./en1993";
 export { aiscFe, aiscFcr, aiscNominalStrength, PHI_C, OMEGA_C } from "./aisc360";
-export { en1065CharacteristicN, EN1065_CLASS } from "./en1065";
+export { en1065CharacteristicN } from "./en1065";
 export { interpolateTable } from "./supplier-table";
 export { en1995Kc, en1995LambdaRel, en1995Resistance } from "./en1995";
 export { ndsCp, ndsFcE, ndsCapacity } from "./nds";
 export { idealBraceCoefficient, app6RequiredStiffness } from "./point-brace";
 export { backpropSequence } from "./backprop";
-export { SOILS, en1992PunchingStress, en1992U1, aci318PunchingStress } from "./base-bearing";
-export { cornerRadii, rhsRoundedArea, rhsRoundedSecondMoment } from "./sections";
+export { SOILS, en1992PunchingStress } from "./base-bearing";
+export { rhsRoundedSecondMoment } from "./sections";
 export { interpolateTableInverseSquare } from "./supplier-table";
 export { K_TABLES } from "./effective-length";
 export * from "./types";

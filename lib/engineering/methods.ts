@@ -154,8 +154,3 @@ export const CHECK_METHODS: readonly MethodInfo<CheckMethodId>[] = [
     lengthDependent: true,
   },
 ];
-
-export function methodInfo(id: MethodId): MethodInfo<MethodId> {
-  // METHODS and CHECK_METHODS together list every MethodId, so find() cannot miss.
-  return ([...METHODS, ...CHECK_METHODS] as MethodInfo<MethodId>[]).find((m) => m.id === id) as MethodInfo<MethodId>;
-}

@@ -13,7 +13,6 @@ export const chsSecondMoment = (d: number, t: number): number => {
   const di = d - 2 * t;
   return (PI / 64) * (d * d * d * d - di * di * di * di);
 };
-export const rhsArea = (b: number, h: number, t: number): number => b * h - (b - 2 * t) * (h - 2 * t);
 /** Second moment for bending that curves the `h` sides (axis parallel to `b`). */
 export const rhsSecondMoment = (b: number, h: number, t: number): number => {
   const bi = b - 2 * t;

@@ -1,6 +1,6 @@
 // When a member's next inspection is due, and in what words. Pure, so the round page, the
 // alert scan and the unit tests agree.
-export const DAY_MS = 24 * 3600_000;
+const DAY_MS = 24 * 3600_000;
 /** "Due soon" means due within this long. */
 export const DUE_SOON_MS = DAY_MS;
 

@@ -23,7 +23,6 @@ export const endConditionSchema = z.enum(endCondition.enumValues, {
 export const loadSourceSchema = z.enum(loadSource.enumValues, {
   error: () => "Load must be given directly (direct) or derived from the scheme's slab (slab).",
 });
-export const memberStatusSchema = z.enum(memberStatus.enumValues);
 
 export const tagSchema = z
   .string({ error: () => "Enter the member's tag (the code on its label)." })
