@@ -49,7 +49,7 @@ export function useRegisterColumns({ siteId, unitSystem }: { siteId: string; uni
         header: "Tag",
         enableHiding: false,
         cell: ({ row }) => (
-          <Link href={`/sites/${siteId}/members/${row.original.id}`} className="whitespace-nowrap font-semibold text-brand underline-offset-2 hover:underline">
+          <Link href={`/sites/${siteId}/members/${row.original.id}`} className="inline-block max-w-40 font-semibold text-brand underline-offset-2 [overflow-wrap:anywhere] hover:underline print:max-w-none">
             {row.original.tag}
           </Link>
         ),
