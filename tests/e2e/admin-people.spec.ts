@@ -2,11 +2,12 @@
 // invite, see it waiting, resend, revoke; change a policy and see a bad value refused in words.
 import { expect, test } from "@playwright/test";
 import { openSite, signIn } from "./helpers";
+import { ORCHARD } from "../support/demo";
 
 test("an admin invites, resends and revokes, and edits the site's settings", async ({ page }, info) => {
   page.on("dialog", (d) => void d.accept());
   await signIn(page, "admin@demo.example");
-  await openSite(page, "Orchard Row Basement");
+  await openSite(page, ORCHARD);
   const siteId = new URL(page.url()).pathname.split("/")[2]!;
 
   await page.goto(`/sites/${siteId}/people`);

@@ -1,9 +1,10 @@
 import { expect, test } from "@playwright/test";
 import { openSite, signIn } from "./helpers";
+import { ORCHARD, WHARF } from "../support/demo";
 
 test("a designer follows the back-propping sequence and re-checks a leaning prop in the calculator", async ({ page }) => {
   await signIn(page, "designer@demo.example");
-  await openSite(page, "Wexcombe Wharf — Block B");
+  await openSite(page, WHARF);
   await page.goto(`${new URL(page.url()).pathname}/calculator`);
   await expect(page.getByRole("note", { name: "Caution" })).toBeVisible();
 
@@ -33,7 +34,7 @@ test("a designer follows the back-propping sequence and re-checks a leaning prop
 
 test("bearing under a base plate in US units names a missing field", async ({ page }) => {
   await signIn(page, "engineer@demo.example");
-  await openSite(page, "Orchard Row Basement");
+  await openSite(page, ORCHARD);
   await page.goto(`${new URL(page.url()).pathname}/calculator`);
   await page.getByLabel("Method").selectOption("base-bearing");
   await page.getByText("US (in, kip, ksi)").click();

@@ -1,9 +1,10 @@
 import { expect, test } from "@playwright/test";
 import { openSite, signIn } from "./helpers";
+import { ORCHARD, WHARF } from "../support/demo";
 
 test("an engineer checks a prop at its extension and reads the working", async ({ page }) => {
   await signIn(page, "engineer@demo.example");
-  await openSite(page, "Wexcombe Wharf — Block B");
+  await openSite(page, WHARF);
   await page.goto(`${new URL(page.url()).pathname}/calculator`);
   await expect(page.getByRole("note", { name: "Caution" })).toBeVisible();
   await page.getByLabel("Method").selectOption("en1065");
@@ -20,7 +21,7 @@ test("an engineer checks a prop at its extension and reads the working", async (
 
 test("a steel tube with an impossible wall shows the reason on the field", async ({ page }) => {
   await signIn(page, "designer@demo.example");
-  await openSite(page, "Orchard Row Basement");
+  await openSite(page, ORCHARD);
   await page.goto(`${new URL(page.url()).pathname}/calculator`);
   await page.getByLabel("Method").selectOption("en1993");
   await page.getByLabel(/^Length between restraints/).fill("3000");

@@ -1,7 +1,9 @@
 // A QR label or e-mail link opened signed out comes back, after sign-in, to exactly that page
 // (with the ?tag= prefill); a callback pointing at another site is ignored. Phone and desktop.
 import { expect, test, type Page } from "@playwright/test";
-import { DEMO_PASSWORD, openSite, signIn } from "./helpers";
+import { openSite, signIn } from "./helpers";
+import { DEMO_PASSWORD } from "../support/http";
+import { WHARF } from "../support/demo";
 
 async function signInHere(page: Page, email: string) {
   await expect(page).toHaveURL(/\/sign-in/);
@@ -12,7 +14,7 @@ async function signInHere(page: Page, email: string) {
 
 test("a scanned label's log link keeps its tag through sign-in", async ({ page, context }) => {
   await signIn(page, "engineer@demo.example");
-  await openSite(page, "Wexcombe Wharf — Block B");
+  await openSite(page, WHARF);
   const siteId = new URL(page.url()).pathname.split("/")[2]!;
   await context.clearCookies();
 

@@ -1,6 +1,5 @@
 import { expect, type Page } from "@playwright/test";
-
-export const DEMO_PASSWORD = "strutwise-demo";
+import { DEMO_PASSWORD } from "../support/http";
 
 export async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
   await page.goto("/sign-in");

@@ -1,8 +1,9 @@
 import { devices, expect, test } from "@playwright/test";
 import { mainNav, openSite, signIn } from "./helpers";
+import { ORCHARD } from "../support/demo";
+import { INBOX_URL } from "../support/http";
 
-const SITE = "Orchard Row Basement";
-const INBOX_URL = process.env.INBOX_URL ?? "http://127.0.0.1:2080";
+const SITE = ORCHARD;
 
 type Mail = { to: string[]; subject: string; text: string };
 

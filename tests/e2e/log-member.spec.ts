@@ -3,13 +3,14 @@
 import { expect, test } from "@playwright/test";
 import sharp from "sharp";
 import { mainNav, openSite, signIn } from "./helpers";
+import { WHARF } from "../support/demo";
 
 test("an engineer logs a member with a photo and sees its check", async ({ page }) => {
   const tag = `E2E-${Date.now().toString(36).toUpperCase()}`;
   const photo = await sharp({ create: { width: 640, height: 480, channels: 3, background: "#7a6a5a" } }).jpeg().toBuffer();
 
   await signIn(page, "engineer@demo.example");
-  await openSite(page, "Wexcombe Wharf — Block B");
+  await openSite(page, WHARF);
   await mainNav(page).getByRole("link", { name: "Log member" }).click();
   await expect(page.getByRole("heading", { name: "Log a member" })).toBeVisible();
 

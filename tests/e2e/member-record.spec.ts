@@ -1,8 +1,9 @@
 import { expect, test, type Page } from "@playwright/test";
 import { INSPECTION_CHECKS } from "../../lib/inspections/checklist";
 import { signIn } from "./helpers";
+import { ORCHARD } from "../support/demo";
 
-const SITE = "Orchard Row Basement";
+const SITE = ORCHARD;
 
 /** A member of its own for each run (copied from a demo member, with a new tag), failed at inspection. */
 async function failedMember(page: Page, tag: string) {

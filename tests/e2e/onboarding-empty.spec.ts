@@ -4,8 +4,8 @@
 // coordinator sees it on a desk, and a signed-out deep link to the member survives sign-in.
 // Runs once, in the "empty" project; each person uses a phone or a desktop browser.
 import { devices, expect, test, type Browser, type Page } from "@playwright/test";
+import { INBOX_URL } from "../support/http";
 
-const INBOX_URL = process.env.INBOX_URL ?? "http://127.0.0.1:2080";
 const PHONE = { ...devices["Pixel 7"], defaultBrowserType: undefined };
 const DESK = { viewport: { width: 1366, height: 850 } };
 const stamp = Date.now().toString(36);

@@ -3,8 +3,9 @@
 // member by member, and the permit closes with the last.
 import { expect, test, type APIRequestContext, type Browser, type Page } from "@playwright/test";
 import { signIn } from "./helpers";
+import { WHARF } from "../support/demo";
 
-const SITE = "Wexcombe Wharf — Block B";
+const SITE = WHARF;
 
 async function signedIn(browser: Browser, email: string, use: Record<string, unknown>): Promise<Page> {
   const ctx = await browser.newContext(use);

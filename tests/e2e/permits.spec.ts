@@ -1,8 +1,9 @@
 import { devices, expect, test, type Browser, type Page } from "@playwright/test";
 import { mainNav, openSite, signIn } from "./helpers";
+import { WHARF } from "../support/demo";
+import { INBOX_URL } from "../support/http";
 
-const SITE = "Wexcombe Wharf — Block B";
-const INBOX_URL = process.env.INBOX_URL ?? "http://127.0.0.1:2080";
+const SITE = WHARF;
 
 // Demo members on Level 2 that are ready to load (passing check, a photo, an in-date passed
 // inspection). The phone and desktop projects run at the same time, so each takes its own pair.

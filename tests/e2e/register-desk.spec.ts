@@ -3,8 +3,9 @@
 // inspection round, and a permit request started from the members chosen in the register.
 import { expect, test, type Page } from "@playwright/test";
 import { mainNav, openSite, signIn } from "./helpers";
+import { WHARF } from "../support/demo";
 
-const SITE = "Wexcombe Wharf — Block B";
+const SITE = WHARF;
 
 async function openRegister(page: Page, email = "coordinator@demo.example") {
   await signIn(page, email);

@@ -1,7 +1,8 @@
 import { expect, test, type Page } from "@playwright/test";
 import { mainNav, openSite, signIn } from "./helpers";
+import { WHARF } from "../support/demo";
 
-const SITE = "Wexcombe Wharf — Block B";
+const SITE = WHARF;
 
 /** The element of that name in whichever layout this viewport shows (cards on a phone, a table on a desk). */
 const visible = (page: Page, name: string) => page.getByRole("link", { name, exact: true }).locator("visible=true").first();

@@ -1,7 +1,8 @@
 import { expect, test } from "@playwright/test";
 import { mainNav, openSite, signIn } from "./helpers";
+import { WHARF } from "../support/demo";
 
-const SITE = "Wexcombe Wharf — Block B";
+const SITE = WHARF;
 
 // What each demo role should find in a site's navigation.
 const ROLE_NAV: Record<string, { has: string[]; lacks: string[] }> = {

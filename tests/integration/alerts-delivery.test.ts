@@ -6,7 +6,7 @@ import { db, sql } from "@/db";
 import { outbox, outboxAttempts } from "@/db/schema";
 import { deliverDueEmails } from "@/lib/jobs/outbox";
 import { runAlertScans } from "@/lib/alerts/scans";
-import { makeFixture, removeFixtures } from "../support/alerts-fixture";
+import { makeAlertsOrg, removeAlertsOrgs } from "../support/fixtures";
 import { inbox } from "../support/http";
 import { drainOutbox } from "../support/outbox-drain";
 
@@ -22,18 +22,18 @@ const p = stack.profile("test");
 afterAll(async () => {
   await stack.ensureMailCatcher(p);
   await drainOutbox("alerts-delivery-cleanup", new Date(Date.now() + 2 * 3600_000));
-  await removeFixtures();
+  await removeAlertsOrgs();
   await sql.end({ timeout: 5 });
 });
 
 describe("delivery while the mail server is down", () => {
   it("queues alert e-mails, retries with back-off, and delivers every one after the server returns", async () => {
-    const fx = await makeFixture("smtp-down");
+    const fx = await makeAlertsOrg({ label: "smtp-down" });
     const loaded = await fx.addMember({ tag: "DN-L", status: "loaded" });
     await fx.addPermit({ memberIds: [loaded.id], validUntil: new Date(Date.now() - 60_000), number: 4 });
     for (let i = 1; i <= 3; i++) await fx.addMember({ tag: `DN-OVL-${i}`, loadN: 45_000 });
     const due = await fx.addMember({ tag: "DN-DUE", zone: "B" });
-    await fx.addInspection(due.id, { at: new Date(Date.now() - 9 * 86_400_000) });
+    await fx.addInspection({ memberId: due.id, at: new Date(Date.now() - 9 * 86_400_000) });
 
     await stack.stopService(`${p.name}-mail`);
     const now = new Date();

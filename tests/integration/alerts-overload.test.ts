@@ -6,23 +6,23 @@ import { and, eq } from "drizzle-orm";
 import { db, sql } from "@/db";
 import { alerts, members, outbox } from "@/db/schema";
 import { sweepOverloads } from "@/lib/alerts/scans";
-import { makeFixture, TABLE_STRONG, type Fixture, removeFixtures } from "../support/alerts-fixture";
+import { type AlertsOrg, makeAlertsOrg, removeAlertsOrgs, TABLE_STRONG } from "../support/fixtures";
 import { signInAs } from "../support/http";
 import { drainOutbox } from "../support/outbox-drain";
 
 afterAll(async () => {
   await drainOutbox("alerts-overload-cleanup");
-  await removeFixtures();
+  await removeAlertsOrgs();
   await sql.end({ timeout: 5 });
 });
 
 type Patched = { member: { checkPass: boolean | null; latestCheckId: string | null; loadN: number } };
 
-async function overloadAlerts(fx: Fixture, memberId: string) {
+async function overloadAlerts(fx: AlertsOrg, memberId: string) {
   return db.select().from(alerts).where(and(eq(alerts.kind, "member_overloaded"), eq(alerts.subjectId, memberId), eq(alerts.siteId, fx.site.id)));
 }
 
-async function expectOneAlertFor(fx: Fixture, memberId: string) {
+async function expectOneAlertFor(fx: AlertsOrg, memberId: string) {
   const [row] = await db.select({ latestCheckId: members.latestCheckId, checkPass: members.checkPass }).from(members).where(eq(members.id, memberId));
   expect(row!.checkPass).toBe(false);
   expect(await sweepOverloads({ siteIds: [fx.site.id] })).toBe(1);
@@ -36,7 +36,7 @@ async function expectOneAlertFor(fx: Fixture, memberId: string) {
 
 describe("overload alerts on each kind of change", () => {
   it("extension, load, spacing and member type changes made through PATCH /api/v1/members/{id}", async () => {
-    const fx = await makeFixture("ovl-api");
+    const fx = await makeAlertsOrg({ label: "ovl-api" });
     const ext = await fx.addMember({ tag: "OV-EXT", extensionMm: 2000, loadN: 25_000 });
     const load = await fx.addMember({ tag: "OV-LOAD", extensionMm: 2000, loadN: 25_000 });
     const spacing = await fx.addMember({ tag: "OV-SPC", extensionMm: 2000, slab: { spacingMm: 1200 } });
@@ -76,7 +76,7 @@ describe("overload alerts on each kind of change", () => {
   });
 
   it("a supplier table lowered in the library (PATCH the member type) overloads its members", async () => {
-    const fx = await makeFixture("ovl-table");
+    const fx = await makeAlertsOrg({ label: "ovl-table" });
     const a = await fx.addMember({ tag: "OV-TBL-1", extensionMm: 2000, loadN: 25_000 });
     const b = await fx.addMember({ tag: "OV-TBL-2", extensionMm: 2000, loadN: 12_000 });
     const designer = await signInAs(fx.people.designer.email);

@@ -7,13 +7,13 @@ import { alertPreferences, alerts, auditEvents, members, outbox, permits } from 
 import { enqueueEmails } from "@/db/queries/outbox";
 import { sendDailyDigests } from "@/lib/alerts/digest";
 import { runAlertScans, scanFailingEmails, scanInspections, scanPermitExpiry, sweepOverloads } from "@/lib/alerts/scans";
-import { makeFixture, type Fixture, removeFixtures } from "../support/alerts-fixture";
+import { type AlertsOrg, makeAlertsOrg, removeAlertsOrgs } from "../support/fixtures";
 import { inbox } from "../support/http";
 import { drainOutbox } from "../support/outbox-drain";
 
 afterAll(async () => {
   await drainOutbox("alerts-scans-cleanup");
-  await removeFixtures();
+  await removeAlertsOrgs();
   await sql.end({ timeout: 5 });
 });
 
@@ -22,7 +22,7 @@ const DAY = 24 * HOUR;
 const T0 = new Date(Math.floor(Date.now() / 1000) * 1000);
 const at = (ms: number) => new Date(T0.getTime() + ms);
 
-async function alertsOf(fx: Fixture, kind: string) {
+async function alertsOf(fx: AlertsOrg, kind: string) {
   return db.select().from(alerts).where(and(eq(alerts.siteId, fx.site.id), eq(alerts.kind, kind)));
 }
 async function alertMailsTo(email: string, kind: string) {
@@ -31,7 +31,7 @@ async function alertMailsTo(email: string, kind: string) {
 
 describe("permit expiry", () => {
   it("warns once within the warning time, then expires the permit once, unloading its members", async () => {
-    const fx = await makeFixture("expiry");
+    const fx = await makeAlertsOrg({ label: "expiry" });
     const a = await fx.addMember({ tag: "EXP-1", status: "loaded" });
     const b = await fx.addMember({ tag: "EXP-2", status: "loaded" });
     const permit = await fx.addPermit({ memberIds: [a.id, b.id], validUntil: at(48 * HOUR), number: 1 });
@@ -68,7 +68,7 @@ describe("permit expiry", () => {
   });
 
   it("a permit renewed to a later time warns again for the new time", async () => {
-    const fx = await makeFixture("renew");
+    const fx = await makeAlertsOrg({ label: "renew" });
     const a = await fx.addMember({ tag: "REN-1", status: "loaded" });
     const permit = await fx.addPermit({ memberIds: [a.id], validUntil: at(10 * HOUR), number: 3 });
     const scope = { siteIds: [fx.site.id] };
@@ -82,12 +82,12 @@ describe("permit expiry", () => {
 
 describe("inspections due", () => {
   it("fires 'due soon' once in the last 24 h before the due time and 'overdue' once after it; a new inspection starts again", async () => {
-    const fx = await makeFixture("due");
+    const fx = await makeAlertsOrg({ label: "due" });
     const m = await fx.addMember({ tag: "DUE-1" });
     await fx.addMember({ tag: "DUE-NEVER" }); // never inspected: waits for its first inspection, no alert
     const d = await fx.addMember({ tag: "DUE-DRAFT", status: "draft" });
-    await fx.addInspection(d.id, { at: at(-20 * DAY) }); // drafts are not on site yet
-    await fx.addInspection(m.id, { at: at(-5 * DAY) }); // 7-day interval: due at T0 + 2 days
+    await fx.addInspection({ memberId: d.id, at: at(-20 * DAY) }); // drafts are not on site yet
+    await fx.addInspection({ memberId: m.id, at: at(-5 * DAY) }); // 7-day interval: due at T0 + 2 days
     const scope = { siteIds: [fx.site.id] };
 
     expect(await scanInspections({ ...scope, now: at(0) })).toBe(0);
@@ -104,7 +104,7 @@ describe("inspections due", () => {
     expect(overdue[0]!.link).toBe(`/sites/${fx.site.id}/members/${m.id}/inspect`);
 
     // Inspected again on day 4: due on day 11, and overdue after that — a new threshold, a new alert.
-    await fx.addInspection(m.id, { at: at(4 * DAY) });
+    await fx.addInspection({ memberId: m.id, at: at(4 * DAY) });
     expect(await scanInspections({ ...scope, now: at(5 * DAY) })).toBe(0);
     expect(await scanInspections({ ...scope, now: at(11 * DAY + 1000) })).toBe(1); // no scan ran in the 24 h before: straight to overdue
     expect(await scanInspections({ ...scope, now: at(12 * DAY) })).toBe(0);
@@ -112,11 +112,11 @@ describe("inspections due", () => {
   });
 
   it("a coordinator's trigger makes the members it covers due now, once", async () => {
-    const fx = await makeFixture("trigger");
+    const fx = await makeAlertsOrg({ label: "trigger" });
     const a = await fx.addMember({ tag: "TRG-A", zone: "A" });
     const b = await fx.addMember({ tag: "TRG-B", zone: "B" });
-    await fx.addInspection(a.id, { at: at(-1 * DAY) });
-    await fx.addInspection(b.id, { at: at(-1 * DAY) });
+    await fx.addInspection({ memberId: a.id, at: at(-1 * DAY) });
+    await fx.addInspection({ memberId: b.id, at: at(-1 * DAY) });
     const { insertInspectionTrigger } = await import("@/db/queries/inspections");
     await insertInspectionTrigger({ siteId: fx.site.id, zoneId: fx.zoneA.id, reason: "Storm overnight", triggeredBy: fx.people.coordinator.id, triggeredAt: at(0) });
     const scope = { siteIds: [fx.site.id] };
@@ -135,7 +135,7 @@ describe("inspections due", () => {
 
 describe("overload, failing e-mail and digest", () => {
   it("an overloaded member alerts once per failing check", async () => {
-    const fx = await makeFixture("overload");
+    const fx = await makeAlertsOrg({ label: "overload" });
     const m = await fx.addMember({ tag: "OVL-1", loadN: 36_000 }); // 36 kN on 35 kN at 2.0 m
     expect(m.pass).toBe(false);
     await fx.addMember({ tag: "OVL-OK", loadN: 20_000 });
@@ -149,7 +149,7 @@ describe("overload, failing e-mail and digest", () => {
   });
 
   it("e-mail that keeps failing alerts the coordinator and admin once per message", async () => {
-    const fx = await makeFixture("mailfail");
+    const fx = await makeAlertsOrg({ label: "mailfail" });
     const rows = await enqueueEmails([
       { siteId: fx.site.id, kind: "test", toEmail: "nobody@fixture.example", subject: `Stuck A ${fx.tag}`, text: "x" },
       { siteId: fx.site.id, kind: "test", toEmail: "nobody@fixture.example", subject: `Stuck B ${fx.tag}`, text: "x" },
@@ -171,7 +171,7 @@ describe("overload, failing e-mail and digest", () => {
   });
 
   it("preferences: in-app only sends nothing, digest sends one e-mail a day, and overload always e-mails the manager", async () => {
-    const fx = await makeFixture("prefs");
+    const fx = await makeAlertsOrg({ label: "prefs" });
     await db.insert(alertPreferences).values([
       { userId: fx.people.manager.id, kind: "inspection_overdue", delivery: "digest" },
       { userId: fx.people.manager.id, kind: "member_overloaded", delivery: "in_app" },
@@ -179,7 +179,7 @@ describe("overload, failing e-mail and digest", () => {
       { userId: fx.people.coordinator.id, kind: "member_overloaded", delivery: "in_app" },
     ]);
     const m = await fx.addMember({ tag: "PRF-1" });
-    await fx.addInspection(m.id, { at: at(-8 * DAY) });
+    await fx.addInspection({ memberId: m.id, at: at(-8 * DAY) });
     await fx.addMember({ tag: "PRF-OVL", loadN: 50_000 });
     const scope = { siteIds: [fx.site.id] };
     const now = at(60_000);
@@ -204,12 +204,12 @@ describe("overload, failing e-mail and digest", () => {
 
 describe("two workers at once", () => {
   it("scanning and delivering in parallel sends each alert e-mail exactly once", async () => {
-    const fx = await makeFixture("parallel");
+    const fx = await makeAlertsOrg({ label: "parallel" });
     const loaded = await fx.addMember({ tag: "PAR-L", status: "loaded" });
     await fx.addPermit({ memberIds: [loaded.id], validUntil: at(-60_000), number: 7 });
     for (let i = 1; i <= 4; i++) await fx.addMember({ tag: `PAR-OVL-${i}`, loadN: 40_000 + i * 1000 });
     const due = await fx.addMember({ tag: "PAR-DUE" });
-    await fx.addInspection(due.id, { at: at(-9 * DAY) });
+    await fx.addInspection({ memberId: due.id, at: at(-9 * DAY) });
     const scope = { siteIds: [fx.site.id], now: at(0) };
     const reports = await Promise.all([runAlertScans(scope), runAlertScans(scope), runAlertScans(scope), runAlertScans(scope)]);
     expect(reports.reduce((n, r) => n + r.overloads, 0)).toBe(4);

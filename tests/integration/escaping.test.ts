@@ -1,27 +1,16 @@
 // Stored text that contains HTML is shown as text — escaped on the page and in e-mails, literal in
 // the PDF — never interpreted (OWASP ASVS 4.0.3 V5.3.1 output encoding for the context).
 import { afterAll, describe, expect, it } from "vitest";
-import { PDFParse } from "pdf-parse";
 import { sql } from "@/db";
 import { inbox, waitFor } from "../support/http";
 import { drainOutbox } from "../support/outbox-drain";
-import { coordinator, makeMember, post, requestLoad, site } from "../support/permits";
-import { as } from "../support/register";
+import { as, makeMember, pdfText, post, requestLoad, site } from "../support/fixtures";
 
 const HOSTILE = `<img src=x onerror="alert(1)"><b>Keep bay 3 clear</b> & <script>alert("x")</script>`;
 
 afterAll(async () => {
   await sql.end({ timeout: 5 });
 });
-
-async function pdfText(bytes: ArrayBuffer) {
-  const parser = new PDFParse({ data: new Uint8Array(bytes) });
-  try {
-    return (await parser.getText()).text;
-  } finally {
-    await parser.destroy();
-  }
-}
 
 describe("text with HTML in it", () => {
   it("a member's notes show escaped on the member page", async () => {
@@ -41,18 +30,18 @@ describe("text with HTML in it", () => {
   it("permit conditions stay text on the permit page, in the PDF and in the e-mail", async () => {
     const wharf = (await site()).id;
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharf);
-    const issued = await post<{ permit: { numberLabel: string } }>(await coordinator(), `/api/v1/permits/${id}/issue`, { conditions: HOSTILE });
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharf });
+    const issued = await post<{ permit: { numberLabel: string } }>(await as("coordinator"), `/api/v1/permits/${id}/issue`, { conditions: HOSTILE });
     expect(issued.status).toBe(200);
     const label = issued.body.permit.numberLabel;
 
-    const page = await (await coordinator()).fetch(`/sites/${wharf}/permits/${id}`);
+    const page = await (await as("coordinator")).fetch(`/sites/${wharf}/permits/${id}`);
     const html = await page.text();
     expect(html).toContain("&lt;script&gt;");
     expect(html).not.toContain('<script>alert("x")</script>');
 
     const pdf = await waitFor(async () => {
-      const r = await (await coordinator()).fetch(`/api/v1/permits/${id}/pdf`);
+      const r = await (await as("coordinator")).fetch(`/api/v1/permits/${id}/pdf`);
       return r.status === 200 ? r : null;
     }, "the permit PDF");
     const text = (await pdfText(await pdf.arrayBuffer())).replace(/\s+/g, " ");

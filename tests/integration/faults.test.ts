@@ -11,8 +11,7 @@ import { enqueueEmails } from "@/db/queries/outbox";
 import { renderPendingPermitPdfs } from "@/lib/permits/pdf";
 import { clearInbox, inbox, waitFor } from "../support/http";
 import { drainOutbox } from "../support/outbox-drain";
-import { coordinator, makeMember, post, requestLoad, site, type ApiErr } from "../support/permits";
-import { as, jpeg, siteId as siteIdOf } from "../support/register";
+import { type ApiErr, as, jpeg, makeMember, post, requestLoad, site, siteId as siteIdOf } from "../support/fixtures";
 
 // The stack's own start/stop functions (plain JavaScript, shared with `npm start` and `npm test`).
 const stackPath = path.resolve(import.meta.dirname, "../../scripts/stack.mjs");
@@ -122,13 +121,13 @@ describe("the object store down", () => {
   it("a permit issued while the store is down is issued; its PDF is stored and e-mailed once the store is back", async () => {
     const wharf = (await site()).id;
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharf);
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharf });
     await clearInbox();
 
     await stack.stopService(`${p.name}-s3`);
     let number: string;
     try {
-      const issued = await post<{ permit: { status: string; numberLabel: string }; pdfReady: boolean } & ApiErr>(await coordinator(), `/api/v1/permits/${id}/issue`, {});
+      const issued = await post<{ permit: { status: string; numberLabel: string }; pdfReady: boolean } & ApiErr>(await as("coordinator"), `/api/v1/permits/${id}/issue`, {});
       expect(issued.status).toBe(200);
       expect(issued.body.permit.status).toBe("issued");
       expect(issued.body.pdfReady).toBe(false);
@@ -153,7 +152,7 @@ describe("the object store down", () => {
     const perRecipient = new Map<string, number>();
     for (const e of mails) for (const to of e.to) perRecipient.set(to, (perRecipient.get(to) ?? 0) + 1);
     expect([...perRecipient.values()].every((n) => n === 1)).toBe(true);
-    const res = await (await coordinator()).fetch(`/api/v1/permits/${id}/pdf`);
+    const res = await (await as("coordinator")).fetch(`/api/v1/permits/${id}/pdf`);
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toContain("application/pdf");
   }, 60_000);

@@ -11,7 +11,7 @@ import { memberships, organisations, users } from "@/db/schema";
 import type { RouteMeta } from "@/lib/api/route";
 import { hashPassword } from "@/lib/auth/password";
 import { DEMO_PASSWORD, signInAs, type Client } from "../support/http";
-import { makeMember, requestLoad, site, unique } from "../support/permits";
+import { makeMember, requestLoad, site, uniqueTag } from "../support/fixtures";
 
 const ROLES = ["engineer", "coordinator", "supervisor", "designer", "manager", "admin"] as const;
 const WRITE = ["POST", "PUT", "PATCH", "DELETE"] as const;
@@ -101,12 +101,12 @@ beforeAll(async () => {
   // One person holding every role on the wharf, so every route gets past its role check to its input.
   const wharf = await site();
   const [org] = await db.select().from(organisations).where(eq(organisations.id, wharf.organisationId));
-  const email = `${unique("fuzz")}@demo.example`.toLowerCase();
+  const email = `${uniqueTag("fuzz")}@demo.example`.toLowerCase();
   const [u] = await db.insert(users).values({ organisationId: org!.id, email, name: "Fuzz Every Role", passwordHash: await hashPassword(DEMO_PASSWORD) }).returning();
   await db.insert(memberships).values(ROLES.map((role) => ({ userId: u!.id, siteId: wharf.id, role })));
   everyRole = await signInAs(email);
   const m = await makeMember();
-  const permitId = await requestLoad([m.id], wharf.id);
+  const permitId = await requestLoad({ memberIds: [m.id], siteId: wharf.id });
   const first = async (q: Promise<readonly { id?: unknown }[]>) => ((await q)[0]?.id as string | undefined) ?? "00000000-0000-4000-8000-000000000000";
   ids = {
     siteId: wharf.id,

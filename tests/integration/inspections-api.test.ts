@@ -6,13 +6,13 @@ import { db, sql } from "@/db";
 import { alerts, auditEvents, inspections, members, outbox, permitMembers } from "@/db/schema";
 import { scanInspections } from "@/lib/alerts/scans";
 import { INSPECTION_CHECKS } from "@/lib/inspections/checklist";
-import { makeFixture, type Fixture, removeFixtures } from "../support/alerts-fixture";
+import { type AlertsOrg, makeAlertsOrg, removeAlertsOrgs } from "../support/fixtures";
 import { anonymous, inbox, signInAs, type Client } from "../support/http";
 import { drainOutbox } from "../support/outbox-drain";
 
 afterAll(async () => {
   await drainOutbox("inspections-cleanup");
-  await removeFixtures();
+  await removeAlertsOrgs();
   await sql.end({ timeout: 5 });
 });
 
@@ -24,10 +24,10 @@ const post = (c: Client, memberId: string, body: unknown) =>
   });
 const countInspections = async (memberId: string) => (await db.select({ n: count() }).from(inspections).where(eq(inspections.memberId, memberId)))[0]!.n;
 
-let fx: Fixture;
+let fx: AlertsOrg;
 let clients: Record<string, Client>;
 beforeAll(async () => {
-  fx = await makeFixture("insp");
+  fx = await makeAlertsOrg({ label: "insp" });
   clients = {};
   for (const role of ["engineer", "supervisor", "coordinator", "manager", "designer", "admin"] as const)
     clients[role] = await signInAs(fx.people[role].email);

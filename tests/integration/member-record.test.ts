@@ -7,13 +7,13 @@ import { db, sql } from "@/db";
 import { alerts, auditEvents, checks, members } from "@/db/schema";
 import { sweepOverloads } from "@/lib/alerts/scans";
 import { INSPECTION_CHECKS } from "@/lib/inspections/checklist";
-import { makeFixture, type Fixture, removeFixtures } from "../support/alerts-fixture";
+import { type AlertsOrg, makeAlertsOrg, removeAlertsOrgs } from "../support/fixtures";
 import { signInAs, type Client } from "../support/http";
 import { drainOutbox } from "../support/outbox-drain";
 
 afterAll(async () => {
   await drainOutbox("member-record-cleanup");
-  await removeFixtures();
+  await removeAlertsOrgs();
   await sql.end({ timeout: 5 });
 });
 
@@ -21,11 +21,11 @@ type ErrorBody = { error: { code: string; message: string; fields?: Record<strin
 const allPass = INSPECTION_CHECKS.map((c) => ({ check: c.key, result: "pass" }));
 const damaged = INSPECTION_CHECKS.map((c) => (c.key === INSPECTION_CHECKS[0]!.key ? { check: c.key, result: "fail", note: "Base plate cracked" } : { check: c.key, result: "pass" }));
 
-let fx: Fixture;
+let fx: AlertsOrg;
 let engineer: Client;
 let coordinator: Client;
 beforeAll(async () => {
-  fx = await makeFixture("record");
+  fx = await makeAlertsOrg({ label: "record" });
   engineer = await signInAs(fx.people.engineer.email);
   coordinator = await signInAs(fx.people.coordinator.email);
 });
@@ -109,7 +109,7 @@ describe("a state the lifecycle owns cannot be set or left by editing", () => {
 
 describe("a failing member alerts whatever its status", () => {
   it("a failing draft and a failing out-of-service member raise the overload alert; a struck one does not", async () => {
-    const f = await makeFixture("record-ovl");
+    const f = await makeAlertsOrg({ label: "record-ovl" });
     // Invented table (tests/support/alerts-fixture.ts): 35 kN safe at 2.0 m, so 36 kN fails.
     const draft = await f.addMember({ tag: "OVL-DRAFT", status: "draft", loadN: 36_000 });
     const oos = await f.addMember({ tag: "OVL-OOS", status: "out_of_service", loadN: 36_000 });
@@ -121,7 +121,7 @@ describe("a failing member alerts whatever its status", () => {
   });
 
   it("a draft made to fail by an edit raises the alert like a submitted member", async () => {
-    const f = await makeFixture("record-ovl-edit");
+    const f = await makeAlertsOrg({ label: "record-ovl-edit" });
     const m = await f.addMember({ tag: "OVL-EDIT", status: "draft", loadN: 20_000 });
     const eng = await signInAs(f.people.engineer.email);
     const r = await eng.json<{ member: { checkPass: boolean } }>(`/api/v1/members/${m.id}`, { method: "PATCH", body: { loadN: 36_000 } });
@@ -131,7 +131,7 @@ describe("a failing member alerts whatever its status", () => {
   });
 
   it("the overview's 'overloaded now' and 'failing the check' counts agree", async () => {
-    const f = await makeFixture("record-counts");
+    const f = await makeAlertsOrg({ label: "record-counts" });
     await f.addMember({ tag: "CNT-DRAFT", status: "draft", loadN: 36_000 });
     await f.addMember({ tag: "CNT-SUB", status: "submitted", loadN: 36_000 });
     await f.addMember({ tag: "CNT-OOS", status: "out_of_service", loadN: 36_000 });

@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "@/db";
 import { anonymous, signInAs, type Client } from "../support/http";
-import { countOutbox, freshEmail, GOOD_PASSWORD, invitePerson, latestLink } from "../support/onboarding";
+import { countOutbox, freshEmail, GOOD_PASSWORD, invitePerson, latestLink } from "../support/fixtures";
 
 let admin: Client;
 let siteId: string;
@@ -22,7 +22,7 @@ afterAll(async () => {
 async function invite(roles: string[], email = freshEmail("inv")) {
   const r = await admin.json<{ invitation: { id: string } }>(`/api/v1/sites/${siteId}/invitations`, { method: "POST", body: { email, roles } });
   expect(r.status).toBe(201);
-  const { token, text, subject } = await latestLink(email, "invitation");
+  const { token, text, subject } = await latestLink({ email, kind: "invitation" });
   return { email, id: r.body.invitation.id, token: token!, text, subject };
 }
 
@@ -94,7 +94,7 @@ describe("invitations", () => {
 
     const resent = await invite(["engineer"]);
     expect((await admin.json(`/api/v1/sites/${siteId}/invitations/${resent.id}/resend`, { method: "POST" })).status).toBe(200);
-    const fresh = await latestLink(resent.email, "invitation");
+    const fresh = await latestLink({ email: resent.email, kind: "invitation" });
     expect(fresh.token).not.toBe(resent.token);
     expect((await accept(resent.token)).status).toBe(404);
     expect((await accept(fresh.token!)).status).toBe(201);
@@ -119,7 +119,7 @@ describe("invitations", () => {
 
 describe("a change takes effect on the person's very next request", () => {
   it("losing a role or the site ends that access in a live session", async () => {
-    const p = await invitePerson(admin, siteId, ["engineer"], "live");
+    const p = await invitePerson({ admin, siteId, roles: ["engineer"], what: "live" });
     const members = `/api/v1/sites/${siteId}/members`;
     expect((await p.client.json(`/api/v1/sites/${siteId}`)).status).toBe(200);
     // An engineer may log members; as a site manager only, the same session may not.
@@ -132,7 +132,7 @@ describe("a change takes effect on the person's very next request", () => {
   });
 
   it("deactivation signs the person out of every device and refuses sign-in; reactivation needs a new sign-in", async () => {
-    const p = await invitePerson(admin, siteId, ["supervisor"], "gone");
+    const p = await invitePerson({ admin, siteId, roles: ["supervisor"], what: "gone" });
     const secondDevice = await signInAs(p.email, GOOD_PASSWORD);
     expect((await admin.json(`/api/v1/people/${p.userId}/deactivate`, { method: "POST" })).status).toBe(200);
     for (const device of [p.client, secondDevice]) {
@@ -150,21 +150,21 @@ describe("a change takes effect on the person's very next request", () => {
 
 describe("passwords", () => {
   it("a reset request gets the same answer whether or not the address exists, and only a real account is e-mailed", async () => {
-    const p = await invitePerson(admin, siteId, ["engineer"], "reset");
+    const p = await invitePerson({ admin, siteId, roles: ["engineer"], what: "reset" });
     const unknown = freshEmail("nobody");
     const a = await anonymous().json("/api/v1/password-resets", { method: "POST", body: { email: p.email } });
     const b = await anonymous().json("/api/v1/password-resets", { method: "POST", body: { email: unknown } });
     expect(a.status).toBe(202);
     expect(b.status).toBe(202);
     expect(a.body).toEqual(b.body);
-    expect(await countOutbox(p.email, "password_reset")).toBe(1);
-    expect(await countOutbox(unknown, "password_reset")).toBe(0);
+    expect(await countOutbox({ email: p.email, kind: "password_reset" })).toBe(1);
+    expect(await countOutbox({ email: unknown, kind: "password_reset" })).toBe(0);
   });
 
   it("the link sets a new password once, ends old sessions, and refuses weak passwords without using up the link", async () => {
-    const p = await invitePerson(admin, siteId, ["engineer"], "reset2");
+    const p = await invitePerson({ admin, siteId, roles: ["engineer"], what: "reset2" });
     await anonymous().json("/api/v1/password-resets", { method: "POST", body: { email: p.email.toUpperCase() } });
-    const { token } = await latestLink(p.email, "password_reset");
+    const { token } = await latestLink({ email: p.email, kind: "password_reset" });
     expect(token).toBeTruthy();
     const weak = await anonymous().json<{ error: { fields: Record<string, string> } }>(`/api/v1/password-resets/${token}`, { method: "POST", body: { password: "qwertyuiop12" } });
     expect(weak.status).toBe(422);
@@ -180,9 +180,9 @@ describe("passwords", () => {
   });
 
   it("a reset link expires after 1 hour", async () => {
-    const p = await invitePerson(admin, siteId, ["engineer"], "reset3");
+    const p = await invitePerson({ admin, siteId, roles: ["engineer"], what: "reset3" });
     await anonymous().json("/api/v1/password-resets", { method: "POST", body: { email: p.email } });
-    const { token } = await latestLink(p.email, "password_reset");
+    const { token } = await latestLink({ email: p.email, kind: "password_reset" });
     const [row] = await sql<{ minutes: number }[]>`select extract(epoch from expires_at - created_at) / 60 as minutes from password_resets where user_id = ${p.userId}`;
     expect(Number(row!.minutes)).toBeCloseTo(60, 0);
     await sql`update password_resets set expires_at = now() - interval '1 second' where user_id = ${p.userId}`;
@@ -199,7 +199,7 @@ describe("passwords", () => {
   });
 
   it("changing your own password needs the current one, refuses common ones, and is throttled", async () => {
-    const p = await invitePerson(admin, siteId, ["engineer"], "change");
+    const p = await invitePerson({ admin, siteId, roles: ["engineer"], what: "change" });
     const wrong = await p.client.json<{ error: { fields: Record<string, string> } }>("/api/v1/me/password", { method: "POST", body: { currentPassword: "not it at all", newPassword: "gravel otter lantern 91" } });
     expect(wrong.status).toBe(422);
     expect(wrong.body.error.fields.currentPassword).toMatch(/not your current password/);

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "@/db";
 import { anonymous, signInAs, type Client } from "../support/http";
-import { freshEmail, invitePerson } from "../support/onboarding";
+import { freshEmail, invitePerson } from "../support/fixtures";
 
 const ROLES = ["engineer", "coordinator", "supervisor", "designer", "manager"] as const;
 let admin: Client;
@@ -126,7 +126,7 @@ describe("invitations", () => {
 
 describe("people and roles", () => {
   it("GET, PUT and DELETE /api/v1/sites/{id}/people[/{userId}]: admins only; a person of another organisation is not found", async () => {
-    const person = await invitePerson(admin, siteId, ["engineer"], "people");
+    const person = await invitePerson({ admin, siteId, roles: ["engineer"], what: "people" });
     const list = await matrix({ method: "GET", path: () => `/api/v1/sites/${siteId}/people`, okStatus: 200 });
     expect((list.body as { items: { email: string; roles: string[] }[] }).items.find((p) => p.email === person.email)).toMatchObject({ roles: ["engineer"] });
     const put = await matrix({ method: "PUT", path: () => `/api/v1/sites/${siteId}/people/${person.userId}`, body: { roles: ["engineer", "supervisor"] }, bad: { roles: [] }, okStatus: 200 });
@@ -138,7 +138,7 @@ describe("people and roles", () => {
   });
 
   it("deactivate and reactivate: organisation admins only; another organisation's person is not found", async () => {
-    const person = await invitePerson(admin, siteId, ["designer"], "deact");
+    const person = await invitePerson({ admin, siteId, roles: ["designer"], what: "deact" });
     const path = () => `/api/v1/people/${person.userId}/deactivate`;
     expect((await anonymous().json(path(), { method: "POST" })).status).toBe(401);
     expect((await other.json(path(), { method: "POST" })).status).toBe(404);

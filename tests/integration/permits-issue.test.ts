@@ -2,14 +2,13 @@
 // and every supervisor and the requester receive it by e-mail.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
-import { PDFParse } from "pdf-parse";
 import { db, sql } from "@/db";
 import { memberships, permits, sites, users } from "@/db/schema";
 import { inbox, waitFor } from "../support/http";
 import { drainOutbox } from "../support/outbox-drain";
 import {
-  coordinator, engineer, makeMember, memberStates, permitRow, personWithRole, post, recheckWithLoad, requestLoad, site, WHARF, type ApiErr,
-} from "../support/permits";
+  type ApiErr, as, makeMember, memberStates, permitRow, personWithRole, post, recheckWithLoad, pdfText, requestLoad, site, WHARF,
+} from "../support/fixtures";
 
 let wharfId: string;
 beforeAll(async () => {
@@ -23,24 +22,14 @@ const counter = async () => (await db.select({ n: sites.permitCounter }).from(si
 
 type Issued = { permit: { id: string; number: number; numberLabel: string; status: string; pdfUrl: string | null; recipients: string[] }; pdfReady: boolean };
 
-/** pdf-parse (pdf.js underneath) turns the PDF into its text, as a reader of the printout would see it. */
-async function pdfText(bytes: ArrayBuffer) {
-  const parser = new PDFParse({ data: new Uint8Array(bytes) });
-  try {
-    return (await parser.getText()).text;
-  } finally {
-    await parser.destroy();
-  }
-}
-
 describe("issuing a permit to load", () => {
   it("two coordinators pressing issue at the same moment produce one permit: one 200, one 409, one number used", async () => {
-    const { client: second } = await personWithRole("coordinator", WHARF);
+    const { client: second } = await personWithRole({ role: "coordinator", siteName: WHARF });
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharfId);
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId });
     const before = await counter();
     const [a, b] = await Promise.all([
-      post<Issued & ApiErr>(await coordinator(), `/api/v1/permits/${id}/issue`, { conditions: "First" }),
+      post<Issued & ApiErr>(await as("coordinator"), `/api/v1/permits/${id}/issue`, { conditions: "First" }),
       post<Issued & ApiErr>(second, `/api/v1/permits/${id}/issue`, { conditions: "Second" }),
     ]);
     expect([a.status, b.status].sort()).toEqual([200, 409]);
@@ -60,15 +49,15 @@ describe("issuing a permit to load", () => {
     const numbers: number[] = [];
     for (let i = 0; i < 3; i++) {
       const m = await makeMember();
-      const id = await requestLoad([m.id], wharfId);
+      const id = await requestLoad({ memberIds: [m.id], siteId: wharfId });
       if (i === 1) {
         // A permit that fails its preconditions consumes no number.
         const bad = await makeMember();
-        const badId = await requestLoad([bad.id], wharfId);
-        await recheckWithLoad(bad.id, 30_000);
-        expect((await post(await coordinator(), `/api/v1/permits/${badId}/issue`, {})).status).toBe(422);
+        const badId = await requestLoad({ memberIds: [bad.id], siteId: wharfId });
+        await recheckWithLoad({ memberId: bad.id, loadN: 30_000 });
+        expect((await post(await as("coordinator"), `/api/v1/permits/${badId}/issue`, {})).status).toBe(422);
       }
-      const r = await post<Issued>(await coordinator(), `/api/v1/permits/${id}/issue`, {});
+      const r = await post<Issued>(await as("coordinator"), `/api/v1/permits/${id}/issue`, {});
       expect(r.status).toBe(200);
       numbers.push(r.body.permit.number);
       expect(r.body.permit.numberLabel).toBe(`PTL-${String(r.body.permit.number).padStart(4, "0")}`);
@@ -78,15 +67,15 @@ describe("issuing a permit to load", () => {
 
   it("marks the members loaded, stores the PDF whose text shows the scope, and e-mails it to every supervisor and the requester", async () => {
     const ms = [await makeMember(), await makeMember({ loadN: 7000 })];
-    const id = await requestLoad(ms.map((m) => m.id), wharfId);
+    const id = await requestLoad({ memberIds: ms.map((m) => m.id), siteId: wharfId });
     const conditions = `Pour bay 1 before bay 2 (${Date.now()})`;
-    const r = await post<Issued>(await coordinator(), `/api/v1/permits/${id}/issue`, { conditions });
+    const r = await post<Issued>(await as("coordinator"), `/api/v1/permits/${id}/issue`, { conditions });
     expect(r.status).toBe(200);
     expect(r.body.pdfReady).toBe(true);
     expect(Object.values(await memberStates(ms.map((m) => m.id)))).toEqual(["loaded", "loaded"]);
     const label = r.body.permit.numberLabel;
 
-    const pdf = await (await coordinator()).fetch(`/api/v1/permits/${id}/pdf`);
+    const pdf = await (await as("coordinator")).fetch(`/api/v1/permits/${id}/pdf`);
     expect(pdf.status).toBe(200);
     expect(pdf.headers.get("content-type")).toBe("application/pdf");
     const text = await pdfText(await pdf.arrayBuffer());
@@ -101,10 +90,10 @@ describe("issuing a permit to load", () => {
     expect(text).toContain("Priya Natarajan");
     expect(text).toContain("competent temporary works designer");
 
-    const letter = await (await coordinator()).fetch(`/api/v1/permits/${id}/pdf?size=letter`);
+    const letter = await (await as("coordinator")).fetch(`/api/v1/permits/${id}/pdf?size=letter`);
     expect(letter.status).toBe(200);
     expect(await pdfText(await letter.arrayBuffer())).toContain(ms[0]!.tag);
-    expect((await (await coordinator()).fetch(`/api/v1/permits/${id}/pdf?size=a3`)).status).toBe(422);
+    expect((await (await as("coordinator")).fetch(`/api/v1/permits/${id}/pdf?size=a3`)).status).toBe(422);
 
     // Every supervisor of the site (whoever holds the role now) and the requester.
     const sups = await db
@@ -128,23 +117,23 @@ describe("issuing a permit to load", () => {
       expect(e.text).toContain("competent temporary works designer");
     }
     // The permit page's delivery status says they were sent.
-    const detail = await (await coordinator()).json<{ permit: { emails: { to: string; status: string }[] } }>(`/api/v1/permits/${id}`);
+    const detail = await (await as("coordinator")).json<{ permit: { emails: { to: string; status: string }[] } }>(`/api/v1/permits/${id}`);
     expect(detail.body.permit.emails.map((e) => e.status)).toEqual(expected.map(() => "sent"));
   });
 
   it("a permit already issued cannot be issued again, refused or re-requested", async () => {
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharfId);
-    expect((await post(await coordinator(), `/api/v1/permits/${id}/issue`, {})).status).toBe(200);
-    const again = await post<ApiErr>(await coordinator(), `/api/v1/permits/${id}/issue`, {});
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId });
+    expect((await post(await as("coordinator"), `/api/v1/permits/${id}/issue`, {})).status).toBe(200);
+    const again = await post<ApiErr>(await as("coordinator"), `/api/v1/permits/${id}/issue`, {});
     expect(again.status).toBe(409);
-    const refuse = await post<ApiErr>(await coordinator(), `/api/v1/permits/${id}/refuse`, { reason: "too late" });
+    const refuse = await post<ApiErr>(await as("coordinator"), `/api/v1/permits/${id}/refuse`, { reason: "too late" });
     expect(refuse.status).toBe(409);
-    const list = await (await engineer()).json<{ permits: { id: string; status: string; numberLabel: string }[] }>(`/api/v1/sites/${wharfId}/permits?status=issued&sort=number&dir=desc`);
+    const list = await (await as("engineer")).json<{ permits: { id: string; status: string; numberLabel: string }[] }>(`/api/v1/sites/${wharfId}/permits?status=issued&sort=number&dir=desc`);
     expect(list.status).toBe(200);
     expect(list.body.permits.every((p) => p.status === "issued")).toBe(true);
     expect(list.body.permits.some((p) => p.id === id)).toBe(true);
-    const bad = await (await engineer()).json(`/api/v1/sites/${wharfId}/permits?status=sideways`);
+    const bad = await (await as("engineer")).json(`/api/v1/sites/${wharfId}/permits?status=sideways`);
     expect(bad.status).toBe(422);
   });
 });

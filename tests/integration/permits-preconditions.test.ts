@@ -1,9 +1,7 @@
 // Issue is refused, with every reason in words, until every member in scope is ready.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "@/db";
-import {
-  coordinator, engineer, makeMember, makeScheme, memberStates, permitRow, post, recheckWithLoad, requestLoad, site, type ApiErr,
-} from "../support/permits";
+import { type ApiErr, as, makeMember, makeScheme, memberStates, permitRow, post, recheckWithLoad, requestLoad, site } from "../support/fixtures";
 
 let wharfId: string;
 beforeAll(async () => {
@@ -21,7 +19,7 @@ describe("requesting a permit to load", () => {
     // 30 kN at 3.0 m is more than an EN 1065 class B prop carries at that extension; the engine must say so first.
     const bad = await makeMember({ loadN: 30_000, extensionMm: 3000 });
     expect(bad.checkPass).toBe(false);
-    const r = await post<ApiErr>(await engineer(), `/api/v1/sites/${wharfId}/permits`, { kind: "load", scope: "members", memberIds: [ok.id, bad.id] });
+    const r = await post<ApiErr>(await as("engineer"), `/api/v1/sites/${wharfId}/permits`, { kind: "load", scope: "members", memberIds: [ok.id, bad.id] });
     expect(r.status).toBe(422);
     expect(r.body.error.fields?.memberIds).toContain(bad.tag);
     expect(r.body.error.fields?.memberIds).toContain(pct(bad.utilisation!));
@@ -33,16 +31,16 @@ describe("requesting a permit to load", () => {
 
   it("refuses a member already loaded under an issued permit, saying which", async () => {
     const m = await makeMember();
-    const first = await requestLoad([m.id], wharfId);
-    const issued = await post<{ permit: { numberLabel: string } }>(await coordinator(), `/api/v1/permits/${first}/issue`, {});
+    const first = await requestLoad({ memberIds: [m.id], siteId: wharfId });
+    const issued = await post<{ permit: { numberLabel: string } }>(await as("coordinator"), `/api/v1/permits/${first}/issue`, {});
     expect(issued.status).toBe(200);
-    const again = await post<ApiErr>(await engineer(), `/api/v1/sites/${wharfId}/permits`, { kind: "load", scope: "members", memberIds: [m.id] });
+    const again = await post<ApiErr>(await as("engineer"), `/api/v1/sites/${wharfId}/permits`, { kind: "load", scope: "members", memberIds: [m.id] });
     expect(again.status).toBe(422);
     expect(again.body.error.fields?.memberIds).toContain(`${m.tag} is already loaded under issued permit ${issued.body.permit.numberLabel}`);
   });
 
   it("rejects bad input field by field", async () => {
-    const r = await post<ApiErr>(await engineer(), `/api/v1/sites/${wharfId}/permits`, { kind: "strike", scope: "scheme-zone" });
+    const r = await post<ApiErr>(await as("engineer"), `/api/v1/sites/${wharfId}/permits`, { kind: "strike", scope: "scheme-zone" });
     expect(r.status).toBe(422);
     expect(Object.keys(r.body.error.fields ?? {})).toEqual(expect.arrayContaining(["schemeId", "zoneId", "evidence"]));
   });
@@ -52,10 +50,10 @@ describe("issuing a permit to load", () => {
   it("a member that fails its check after the request blocks the issue, named with its utilisation", async () => {
     const a = await makeMember();
     const b = await makeMember();
-    const id = await requestLoad([a.id, b.id], wharfId);
-    const failing = await recheckWithLoad(b.id, 30_000);
+    const id = await requestLoad({ memberIds: [a.id, b.id], siteId: wharfId });
+    const failing = await recheckWithLoad({ memberId: b.id, loadN: 30_000 });
     expect(failing.pass).toBe(false);
-    const r = await post<ApiErr>(await coordinator(), `/api/v1/permits/${id}/issue`, {});
+    const r = await post<ApiErr>(await as("coordinator"), `/api/v1/permits/${id}/issue`, {});
     expect(r.status).toBe(422);
     expect(r.body.error.code).toBe("preconditions_failed");
     expect(r.body.error.fields?.[b.tag]).toContain("Fails its capacity check");
@@ -74,8 +72,8 @@ describe("issuing a permit to load", () => {
     const overdue = await makeMember({ inspection: "overdue" });
     const failedInsp = await makeMember({ inspection: "fail" });
     const never = await makeMember({ inspection: false });
-    const id = await requestLoad([noPhoto.id, pending.id, overdue.id, failedInsp.id, never.id], wharfId);
-    const r = await post<ApiErr>(await coordinator(), `/api/v1/permits/${id}/issue`, {});
+    const id = await requestLoad({ memberIds: [noPhoto.id, pending.id, overdue.id, failedInsp.id, never.id], siteId: wharfId });
+    const r = await post<ApiErr>(await as("coordinator"), `/api/v1/permits/${id}/issue`, {});
     expect(r.status).toBe(422);
     const f = r.body.error.fields!;
     expect(f[noPhoto.tag]).toBe("Has no photo");
@@ -88,24 +86,24 @@ describe("issuing a permit to load", () => {
 
   it("a scheme of category 1 or above without its check certificate blocks the issue; category 0 does not need one", async () => {
     const s = await site();
-    const cat2 = await makeScheme(s.id, { category: 2 });
-    const cat0 = await makeScheme(s.id, { category: 0 });
+    const cat2 = await makeScheme({ siteId: s.id, category: 2 });
+    const cat0 = await makeScheme({ siteId: s.id, category: 0 });
     const m2 = await makeMember({ schemeIdOverride: cat2.id });
     const m0 = await makeMember({ schemeIdOverride: cat0.id });
-    const blocked = await requestLoad([m2.id], wharfId);
-    const r = await post<ApiErr>(await coordinator(), `/api/v1/permits/${blocked}/issue`, {});
+    const blocked = await requestLoad({ memberIds: [m2.id], siteId: wharfId });
+    const r = await post<ApiErr>(await as("coordinator"), `/api/v1/permits/${blocked}/issue`, {});
     expect(r.status).toBe(422);
     expect(r.body.error.fields?.certificate).toBe(`Scheme ${cat2.reference} (design check category 2) has no design check certificate`);
-    const fine = await requestLoad([m0.id], wharfId);
-    const ok = await post(await coordinator(), `/api/v1/permits/${fine}/issue`, {});
+    const fine = await requestLoad({ memberIds: [m0.id], siteId: wharfId });
+    const ok = await post(await as("coordinator"), `/api/v1/permits/${fine}/issue`, {});
     expect(ok.status).toBe(200);
   });
 
   it("the permit page API shows the same findings per member before issuing", async () => {
     const good = await makeMember();
     const noPhoto = await makeMember({ photo: false });
-    const id = await requestLoad([good.id, noPhoto.id], wharfId);
-    const r = await (await coordinator()).json<{
+    const id = await requestLoad({ memberIds: [good.id, noPhoto.id], siteId: wharfId });
+    const r = await (await as("coordinator")).json<{
       permit: { preconditions: { canIssue: boolean; members: { tag: string; ready: boolean; findings: { key: string; ok: boolean; text: string }[] }[] }; may: { issue: boolean } };
     }>(`/api/v1/permits/${id}`);
     expect(r.status).toBe(200);
@@ -120,14 +118,14 @@ describe("issuing a permit to load", () => {
 
   it("validity must be in the future and at most 28 days away", async () => {
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharfId);
-    const past = await post<ApiErr>(await coordinator(), `/api/v1/permits/${id}/issue`, { validUntil: new Date(Date.now() - 60_000).toISOString() });
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId });
+    const past = await post<ApiErr>(await as("coordinator"), `/api/v1/permits/${id}/issue`, { validUntil: new Date(Date.now() - 60_000).toISOString() });
     expect(past.status).toBe(422);
     expect(past.body.error.fields?.validUntil).toContain("future");
-    const far = await post<ApiErr>(await coordinator(), `/api/v1/permits/${id}/issue`, { validUntil: new Date(Date.now() + 29 * 86_400_000).toISOString() });
+    const far = await post<ApiErr>(await as("coordinator"), `/api/v1/permits/${id}/issue`, { validUntil: new Date(Date.now() + 29 * 86_400_000).toISOString() });
     expect(far.status).toBe(422);
     expect(far.body.error.fields?.validUntil).toContain("28 days");
-    const garbage = await post<ApiErr>(await coordinator(), `/api/v1/permits/${id}/issue`, { validUntil: "next tuesday" });
+    const garbage = await post<ApiErr>(await as("coordinator"), `/api/v1/permits/${id}/issue`, { validUntil: "next tuesday" });
     expect(garbage.status).toBe(422);
     expect((await permitRow(id)).status).toBe("requested");
   });

@@ -4,9 +4,7 @@ import { eq } from "drizzle-orm";
 import { db, sql } from "@/db";
 import { users } from "@/db/schema";
 import { anonymous } from "../support/http";
-import {
-  client, coordinator, engineer, L2, makeMember, ORCHARD, permitRow, personWithRole, post, requestLoad, site, supervisor, zoneId, type ApiErr,
-} from "../support/permits";
+import { type ApiErr, as, client, L2, makeMember, ORCHARD, permitRow, personWithRole, post, requestLoad, site, zoneId } from "../support/fixtures";
 
 let wharfId: string;
 beforeAll(async () => {
@@ -19,11 +17,11 @@ afterAll(async () => {
 describe("permit role matrix", () => {
   it("an engineer may request but not issue (403, nothing changes)", async () => {
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharfId);
-    const r = await post<ApiErr>(await engineer(), `/api/v1/permits/${id}/issue`, {});
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId });
+    const r = await post<ApiErr>(await as("engineer"), `/api/v1/permits/${id}/issue`, {});
     expect(r.status).toBe(403);
     expect((await permitRow(id)).status).toBe("requested");
-    const refuse = await post(await engineer(), `/api/v1/permits/${id}/refuse`, { reason: "not mine to refuse" });
+    const refuse = await post(await as("engineer"), `/api/v1/permits/${id}/refuse`, { reason: "not mine to refuse" });
     expect(refuse.status).toBe(403);
   });
 
@@ -37,7 +35,7 @@ describe("permit role matrix", () => {
 
   it("without a session every permit endpoint answers 401", async () => {
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharfId);
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId });
     const anon = anonymous();
     expect((await anon.json(`/api/v1/sites/${wharfId}/permits`)).status).toBe(401);
     expect((await anon.json(`/api/v1/permits/${id}`)).status).toBe(401);
@@ -47,7 +45,7 @@ describe("permit role matrix", () => {
 
   it("another organisation's admin gets 404 for the permit, its actions, its PDF and the site's permits", async () => {
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharfId);
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId });
     const other = await client("admin@other.example");
     expect((await other.json(`/api/v1/permits/${id}`)).status).toBe(404);
     expect((await post(other, `/api/v1/permits/${id}/issue`, {})).status).toBe(404);
@@ -60,8 +58,8 @@ describe("permit role matrix", () => {
 
   it("a coordinator of another site in the same organisation gets 404 and cannot issue", async () => {
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharfId);
-    const { client: orchardCoordinator } = await personWithRole("coordinator", ORCHARD);
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId });
+    const { client: orchardCoordinator } = await personWithRole({ role: "coordinator", siteName: ORCHARD });
     const r = await post(orchardCoordinator, `/api/v1/permits/${id}/issue`, {});
     expect(r.status).toBe(404);
     expect((await permitRow(id)).status).toBe("requested");
@@ -70,20 +68,20 @@ describe("permit role matrix", () => {
 
 describe("a supervisor's delegated issuing scope", () => {
   it("403 without scope; allowed within scope (recorded who gave it); 403 outside its zones and after revocation", async () => {
-    const sup = await supervisor();
-    const coord = await coordinator();
-    const l2 = await zoneId(wharfId, L2);
+    const sup = await as("supervisor");
+    const coord = await as("coordinator");
+    const l2 = await zoneId({ siteId: wharfId, name: L2 });
     const l1Member = await makeMember({ zone: "Level 1 slab, bays 1–4" });
     const a = await makeMember();
     const b = await makeMember();
-    const first = await requestLoad([a.id], wharfId);
+    const first = await requestLoad({ memberIds: [a.id], siteId: wharfId });
 
     const before = await post<ApiErr>(sup, `/api/v1/permits/${first}/issue`, {});
     expect(before.status).toBe(403);
     expect(before.body.error.message).toContain("issuing scope");
 
     // Only the coordinator may give scope, only to a supervisor of the site, for the site's zones.
-    const byEngineer = await post(await engineer(), `/api/v1/sites/${wharfId}/permit-delegations`, { userId: "00000000-0000-4000-8000-000000000000", zoneIds: [l2], validUntil: new Date(Date.now() + 86_400_000).toISOString() });
+    const byEngineer = await post(await as("engineer"), `/api/v1/sites/${wharfId}/permit-delegations`, { userId: "00000000-0000-4000-8000-000000000000", zoneIds: [l2], validUntil: new Date(Date.now() + 86_400_000).toISOString() });
     expect(byEngineer.status).toBe(403);
     const [eng] = await db.select({ id: users.id }).from(users).where(eq(users.email, "engineer@demo.example"));
     const notSupervisor = await post<ApiErr>(coord, `/api/v1/sites/${wharfId}/permit-delegations`, { userId: eng!.id, zoneIds: [l2], validUntil: new Date(Date.now() + 86_400_000).toISOString() });
@@ -106,7 +104,7 @@ describe("a supervisor's delegated issuing scope", () => {
       expect(ok.body.permit).toMatchObject({ status: "issued", approvedBy: supUser!.name });
 
       // A permit with a member in Level 1 is outside the scope.
-      const mixed = await requestLoad([b.id, l1Member.id], wharfId);
+      const mixed = await requestLoad({ memberIds: [b.id, l1Member.id], siteId: wharfId });
       const outside = await post<ApiErr>(sup, `/api/v1/permits/${mixed}/issue`, {});
       expect(outside.status).toBe(403);
       expect(outside.body.error.message).toContain("does not cover every zone");
@@ -115,7 +113,7 @@ describe("a supervisor's delegated issuing scope", () => {
       expect(revoke.status).toBe(200);
     }
     const c = await makeMember();
-    const after = await requestLoad([c.id], wharfId);
+    const after = await requestLoad({ memberIds: [c.id], siteId: wharfId });
     expect((await post(sup, `/api/v1/permits/${after}/issue`, {})).status).toBe(403);
   });
 });

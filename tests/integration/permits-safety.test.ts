@@ -6,8 +6,8 @@ import { sql } from "@/db";
 import { inbox, waitFor, type Client } from "../support/http";
 import { drainOutbox } from "../support/outbox-drain";
 import {
-  client, coordinator, engineer, L2, makeMember, memberStates, permitRow, personWithRole, post, requestLoad, site, supervisor, zoneId, type ApiErr,
-} from "../support/permits";
+  type ApiErr, as, client, L2, makeMember, memberStates, permitRow, personWithRole, post, requestLoad, site, WHARF, zoneId,
+} from "../support/fixtures";
 
 const L1 = "Level 1 slab, bays 1–4";
 let wharfId: string;
@@ -47,14 +47,14 @@ const strength = (results: number[], required = 20) => ({
 });
 
 async function requestStrike(memberIds: string[], evidence: unknown = strength([26, 27])) {
-  const r = await post<{ permit: { id: string } } & ApiErr>(await engineer(), `/api/v1/sites/${wharfId}/permits`, { kind: "strike", scope: "members", memberIds, evidence });
+  const r = await post<{ permit: { id: string } } & ApiErr>(await as("engineer"), `/api/v1/sites/${wharfId}/permits`, { kind: "strike", scope: "members", memberIds, evidence });
   expect(r.status).toBe(201);
   return r.body.permit.id;
 }
 
 async function delegatedSupervisor(zoneIds: string[]) {
-  const sup = await personWithRole("supervisor", "Wexcombe Wharf — Block B");
-  const grant = await post(await coordinator(), `/api/v1/sites/${wharfId}/permit-delegations`, {
+  const sup = await personWithRole({ role: "supervisor", siteName: WHARF });
+  const grant = await post(await as("coordinator"), `/api/v1/sites/${wharfId}/permit-delegations`, {
     userId: sup.user.id,
     zoneIds,
     validUntil: new Date(Date.now() + 2 * 86_400_000).toISOString(),
@@ -66,18 +66,18 @@ async function delegatedSupervisor(zoneIds: string[]) {
 describe("separation of duties", () => {
   it("the coordinator who requested a permit cannot issue it; another coordinator can, and the review says why", async () => {
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharfId, await coordinator());
-    const own = await post<ApiErr>(await coordinator(), `/api/v1/permits/${id}/issue`, {});
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId, by: await as("coordinator") });
+    const own = await post<ApiErr>(await as("coordinator"), `/api/v1/permits/${id}/issue`, {});
     expect(own.status).toBe(403);
     expect(own.body.error.message).toContain("You requested this permit");
     expect((await permitRow(id)).status).toBe("requested");
     // The review page's data: may not issue, may still refuse (a requester can drop their own request), with the reason.
-    const view = await (await coordinator()).json<PermitBody>(`/api/v1/permits/${id}`);
+    const view = await (await as("coordinator")).json<PermitBody>(`/api/v1/permits/${id}`);
     expect(view.body.permit.may.issue).toBe(false);
     expect(view.body.permit.may.refuse).toBe(true);
     expect(view.body.permit.issueBlockedBy).toContain("separation of duties");
 
-    const second = await personWithRole("coordinator", "Wexcombe Wharf — Block B");
+    const second = await personWithRole({ role: "coordinator", siteName: WHARF });
     const ok = await post<PermitBody>(second.client, `/api/v1/permits/${id}/issue`, {});
     expect(ok.status).toBe(200);
     expect(ok.body.permit.approvedBy).toBe(second.user.name);
@@ -85,18 +85,18 @@ describe("separation of duties", () => {
 
   it("a coordinator still issues a supervisor's request", async () => {
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharfId, await supervisor());
-    const r = await post<PermitBody>(await coordinator(), `/api/v1/permits/${id}/issue`, {});
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId, by: await as("supervisor") });
+    const r = await post<PermitBody>(await as("coordinator"), `/api/v1/permits/${id}/issue`, {});
     expect(r.status).toBe(200);
     expect(r.body.permit.status).toBe("issued");
   });
 
   it("a supervisor issuing under delegated scope e-mails the site's coordinators at once, and cannot issue their own request", async () => {
-    const l2 = await zoneId(wharfId, L2);
+    const l2 = await zoneId({ siteId: wharfId, name: L2 });
     const sup = await delegatedSupervisor([l2]);
     // The coordinator's own request is issued by the delegated supervisor.
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharfId, await coordinator());
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId, by: await as("coordinator") });
     const r = await post<PermitBody>(sup.client, `/api/v1/permits/${id}/issue`, {});
     expect(r.status).toBe(200);
     const label = r.body.permit.numberLabel!;
@@ -114,12 +114,12 @@ describe("separation of duties", () => {
 
     // The supervisor's own request needs someone else.
     const m2 = await makeMember();
-    const ownId = await requestLoad([m2.id], wharfId, sup.client);
+    const ownId = await requestLoad({ memberIds: [m2.id], siteId: wharfId, by: sup.client });
     const own = await post<ApiErr>(sup.client, `/api/v1/permits/${ownId}/issue`, {});
     expect(own.status).toBe(403);
     expect(own.body.error.message).toContain("separation of duties");
     // A coordinator's issue sends no such notice.
-    expect((await post(await coordinator(), `/api/v1/permits/${ownId}/issue`, {})).status).toBe(200);
+    expect((await post(await as("coordinator"), `/api/v1/permits/${ownId}/issue`, {})).status).toBe(200);
     const none = await sql`select 1 from outbox where related_id = ${ownId} and kind = 'permit.issued_under_scope'`;
     expect(none.length).toBe(0);
   });
@@ -133,11 +133,11 @@ async function failInspection(c: Client, memberId: string) {
 describe("permit states follow their members", () => {
   it("a permit to load closes itself (audited) once every member has been taken out of it after failed inspections", async () => {
     const ms = [await makeMember(), await makeMember()];
-    const id = await requestLoad(ms.map((m) => m.id), wharfId);
-    expect((await post(await coordinator(), `/api/v1/permits/${id}/issue`, {})).status).toBe(200);
-    await failInspection(await engineer(), ms[0]!.id);
+    const id = await requestLoad({ memberIds: ms.map((m) => m.id), siteId: wharfId });
+    expect((await post(await as("coordinator"), `/api/v1/permits/${id}/issue`, {})).status).toBe(200);
+    await failInspection(await as("engineer"), ms[0]!.id);
     expect((await permitRow(id)).status).toBe("issued");
-    await failInspection(await engineer(), ms[1]!.id);
+    await failInspection(await as("engineer"), ms[1]!.id);
     const row = await permitRow(id);
     expect(row.status).toBe("closed");
     expect(row.closedAt).toBeInstanceOf(Date);
@@ -147,13 +147,13 @@ describe("permit states follow their members", () => {
 
   it("striking the members of a permit to load closes that permit to load", async () => {
     const ms = [await makeMember(), await makeMember()];
-    const ptl = await requestLoad(ms.map((m) => m.id), wharfId);
-    expect((await post(await coordinator(), `/api/v1/permits/${ptl}/issue`, {})).status).toBe(200);
+    const ptl = await requestLoad({ memberIds: ms.map((m) => m.id), siteId: wharfId });
+    expect((await post(await as("coordinator"), `/api/v1/permits/${ptl}/issue`, {})).status).toBe(200);
     const pts = await requestStrike(ms.map((m) => m.id));
-    expect((await post(await coordinator(), `/api/v1/permits/${pts}/issue`, {})).status).toBe(200);
-    expect((await post(await supervisor(), `/api/v1/permits/${pts}/confirm-struck`, { memberIds: [ms[0]!.id] })).status).toBe(200);
+    expect((await post(await as("coordinator"), `/api/v1/permits/${pts}/issue`, {})).status).toBe(200);
+    expect((await post(await as("supervisor"), `/api/v1/permits/${pts}/confirm-struck`, { memberIds: [ms[0]!.id] })).status).toBe(200);
     expect((await permitRow(ptl)).status).toBe("issued");
-    expect((await post(await supervisor(), `/api/v1/permits/${pts}/confirm-struck`, { memberIds: [ms[1]!.id] })).status).toBe(200);
+    expect((await post(await as("supervisor"), `/api/v1/permits/${pts}/confirm-struck`, { memberIds: [ms[1]!.id] })).status).toBe(200);
     expect((await permitRow(ptl)).status).toBe("closed");
     expect((await auditActions(ptl)).some((a) => a.action === "permit.closed" && a.after?.automatic === true)).toBe(true);
   });
@@ -165,13 +165,13 @@ describe("striking member by member or by zone", () => {
     const b = await makeMember({ status: "loaded" });
     const c = await makeMember({ status: "loaded", zone: L1 });
     const id = await requestStrike([a.id, b.id, c.id]);
-    expect((await post(await coordinator(), `/api/v1/permits/${id}/issue`, {})).status).toBe(200);
-    const sup = await supervisor();
+    expect((await post(await as("coordinator"), `/api/v1/permits/${id}/issue`, {})).status).toBe(200);
+    const sup = await as("supervisor");
 
     const notMine = await post<ApiErr>(sup, `/api/v1/permits/${id}/confirm-struck`, { memberIds: ["00000000-0000-4000-8000-000000000000"] });
     expect(notMine.status).toBe(422);
     expect(notMine.body.error.fields?.memberIds).toContain("not in this permit");
-    const both = await post<ApiErr>(sup, `/api/v1/permits/${id}/confirm-struck`, { memberIds: [a.id], zoneId: await zoneId(wharfId, L1) });
+    const both = await post<ApiErr>(sup, `/api/v1/permits/${id}/confirm-struck`, { memberIds: [a.id], zoneId: await zoneId({ siteId: wharfId, name: L1 }) });
     expect(both.status).toBe(422);
     expect(Object.values(await memberStates([a.id, b.id, c.id]))).toEqual(["loaded", "loaded", "loaded"]);
 
@@ -185,7 +185,7 @@ describe("striking member by member or by zone", () => {
     expect(again.status).toBe(422);
     expect(again.body.error.fields?.memberIds).toContain(`${a.tag} has already been struck`);
 
-    const zone = await post<PermitBody & { struck: string[] }>(sup, `/api/v1/permits/${id}/confirm-struck`, { zoneId: await zoneId(wharfId, L1) });
+    const zone = await post<PermitBody & { struck: string[] }>(sup, `/api/v1/permits/${id}/confirm-struck`, { zoneId: await zoneId({ siteId: wharfId, name: L1 }) });
     expect(zone.status).toBe(200);
     expect(zone.body.struck).toEqual([c.tag]);
     expect((await permitRow(id)).status).toBe("issued");
@@ -202,9 +202,9 @@ describe("amending striking evidence", () => {
   it("new cube results replace the old while the request is open; the old stay in the history", async () => {
     const m = await makeMember({ status: "loaded" });
     const id = await requestStrike([m.id], strength([24.5, 17.5]));
-    expect((await post(await coordinator(), `/api/v1/permits/${id}/issue`, {})).status).toBe(422);
+    expect((await post(await as("coordinator"), `/api/v1/permits/${id}/issue`, {})).status).toBe(422);
 
-    const eng = await engineer();
+    const eng = await as("engineer");
     const bad = await eng.json<ApiErr>(`/api/v1/permits/${id}/evidence`, { method: "PATCH", body: { evidence: strength([-1]) } });
     expect(bad.status).toBe(422);
     expect(bad.body.error.fields?.["evidence.results.0.strengthMpa"]).toContain("more than 0");
@@ -219,7 +219,7 @@ describe("amending striking evidence", () => {
     expect(amended.body.permit.evidenceHistory[0]!.replacedByName).toBe("Tomasz Wilk");
     expect((await auditActions(id)).some((a) => a.action === "permit.evidence_amended")).toBe(true);
 
-    expect((await post(await coordinator(), `/api/v1/permits/${id}/issue`, {})).status).toBe(200);
+    expect((await post(await as("coordinator"), `/api/v1/permits/${id}/issue`, {})).status).toBe(200);
     const late = await eng.json<ApiErr>(`/api/v1/permits/${id}/evidence`, { method: "PATCH", body: { evidence: strength([30]) } });
     expect(late.status).toBe(409);
     expect(late.body.error.message).toContain("only while the request is open");
@@ -227,8 +227,8 @@ describe("amending striking evidence", () => {
 
   it("a permit to load has no striking evidence to amend (409)", async () => {
     const m = await makeMember();
-    const id = await requestLoad([m.id], wharfId);
-    const r = await (await engineer()).json<ApiErr>(`/api/v1/permits/${id}/evidence`, { method: "PATCH", body: { evidence: strength([30]) } });
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId });
+    const r = await (await as("engineer")).json<ApiErr>(`/api/v1/permits/${id}/evidence`, { method: "PATCH", body: { evidence: strength([30]) } });
     expect(r.status).toBe(409);
   });
 });
@@ -267,8 +267,8 @@ describe("certificates and drawings are documents", () => {
 
     // Nothing was recorded by the refused uploads: the permit is still blocked.
     const m = await makeMember({ schemeIdOverride: scheme.id });
-    const id = await requestLoad([m.id], wharfId);
-    const blocked = await post<ApiErr>(await coordinator(), `/api/v1/permits/${id}/issue`, {});
+    const id = await requestLoad({ memberIds: [m.id], siteId: wharfId });
+    const blocked = await post<ApiErr>(await as("coordinator"), `/api/v1/permits/${id}/issue`, {});
     expect(blocked.status).toBe(422);
     expect(blocked.body.error.fields?.certificate).toContain("has no design check certificate");
 
@@ -276,11 +276,11 @@ describe("certificates and drawings are documents", () => {
     expect(ok.status).toBe(200);
     expect(ok.body.document).toMatchObject({ kind: "certificate", checkerName: "R. Checker", checkCategory: 2, documentDate: "2026-11-20", signedImageConfirmed: true, contentType: "image/png" });
 
-    const view = await (await coordinator()).json<PermitBody>(`/api/v1/permits/${id}`);
+    const view = await (await as("coordinator")).json<PermitBody>(`/api/v1/permits/${id}`);
     const cert = view.body.permit.preconditions.permit.find((f) => f.key === "certificate");
     expect(cert).toMatchObject({ ok: true });
     expect(cert!.text).toContain("checked by R. Checker");
-    expect((await post(await coordinator(), `/api/v1/permits/${id}/issue`, {})).status).toBe(200);
+    expect((await post(await as("coordinator"), `/api/v1/permits/${id}/issue`, {})).status).toBe(200);
   });
 
   it("drawings keep every revision: letters follow on, a repeated revision is refused, the list keeps them all", async () => {

@@ -4,8 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import Papa from "papaparse";
 import { sql } from "@/db";
 import { DEMO_MEMBER_TYPES } from "@/db/seed/data";
-import { as } from "../support/register";
-import { makeRegisterSite, type RegisterSite } from "../support/register-site";
+import { as, makeRegisterSite, type RegisterSite } from "../support/fixtures";
 
 type Problem = { row: number; field: string; reason: string };
 type Rejected = { error: { code: string; message: string; rows: Problem[] } };

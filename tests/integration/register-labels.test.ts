@@ -3,8 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { extractText, getDocumentProxy } from "unpdf";
 import { sql } from "@/db";
-import { as } from "../support/register";
-import { makeRegisterSite, type RegisterSite } from "../support/register-site";
+import { as, makeRegisterSite, type RegisterSite } from "../support/fixtures";
 
 let S: RegisterSite;
 beforeAll(async () => {

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "@/db";
 import { anonymous } from "../support/http";
-import { as, lookups, ROLES, siteId, uniqueTag } from "../support/register";
+import { as, lookups, ROLES, siteId, uniqueTag } from "../support/fixtures";
 
 afterAll(async () => {
   await sql.end({ timeout: 5 });

@@ -4,8 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import Papa from "papaparse";
 import { sql } from "@/db";
 import { anonymous } from "../support/http";
-import { as, ROLES } from "../support/register";
-import { makeRegisterSite, type FixtureMember, type RegisterSite } from "../support/register-site";
+import { as, type FixtureMember, makeRegisterSite, type RegisterSite, ROLES } from "../support/fixtures";
 
 type Item = {
   id: string;

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "@/db";
 import { anonymous } from "../support/http";
-import { as, lookups, ROLES, siteId, uniqueTag, WHARF, ORCHARD } from "../support/register";
+import { as, lookups, ORCHARD, ROLES, siteId, uniqueTag, WHARF } from "../support/fixtures";
 
 afterAll(async () => {
   await sql.end({ timeout: 5 });

@@ -4,7 +4,7 @@ import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "@/db";
 import { anonymous } from "../support/http";
-import { as, jpeg, lookups, ROLES, siteId, uniqueTag, uploadPhoto } from "../support/register";
+import { as, jpeg, lookups, ROLES, siteId, uniqueTag, uploadPhoto } from "../support/fixtures";
 
 afterAll(async () => {
   await sql.end({ timeout: 5 });
@@ -26,7 +26,7 @@ describe("photo uploads", () => {
     const engineer = await as("engineer");
     const original = await jpeg({ exif: true, size: 400 });
     expect((await sharp(original).metadata()).exif).toBeDefined(); // the fixture really carries EXIF
-    const { start, put, complete } = await uploadPhoto(engineer, `/api/v1/sites/${site}/photos`, original);
+    const { start, put, complete } = await uploadPhoto({ by: engineer, presignPath: `/api/v1/sites/${site}/photos`, bytes: original });
     expect(start.status).toBe(201);
     expect(put!.status).toBe(200);
     expect(complete!.status).toBe(200);
@@ -56,7 +56,7 @@ describe("photo uploads", () => {
   });
 
   it("refuses a file that is not an image, whatever type it was declared as", async () => {
-    const { start, complete } = await uploadPhoto(await as("engineer"), `/api/v1/sites/${site}/photos`, Buffer.from("these are not the bytes of a photograph"), "image/jpeg");
+    const { start, complete } = await uploadPhoto({ by: await as("engineer"), presignPath: `/api/v1/sites/${site}/photos`, bytes: Buffer.from("these are not the bytes of a photograph"), contentType: "image/jpeg" });
     expect(complete!.status).toBe(422);
     expect(complete!.body.error?.fields?.photo).toMatch(/not an image/);
     const [row] = await sql<{ status: string; reject_reason: string }[]>`select status, reject_reason from photos where id = ${start.body.photoId}`;
@@ -70,7 +70,7 @@ describe("photo uploads", () => {
     expect(big.status).toBe(422);
     expect(big.body.error.fields.size).toMatch(/larger than 15 MB/);
     const bytes = await jpeg({ size: 200 });
-    const { complete } = await uploadPhoto(engineer, `/api/v1/sites/${site}/photos`, bytes, "image/jpeg", 100);
+    const { complete } = await uploadPhoto({ by: engineer, presignPath: `/api/v1/sites/${site}/photos`, bytes, contentType: "image/jpeg", declaredSize: 100 });
     expect(complete!.status).toBe(422);
     expect(complete!.body.error?.fields?.photo).toMatch(/larger than the 100 bytes declared/);
     const notPhoto = await engineer.json<{ error: { fields: Record<string, string> } }>(`/api/v1/sites/${site}/photos`, { method: "POST", body: { contentType: "application/pdf", size: 100 } });
@@ -96,7 +96,7 @@ describe("photo uploads", () => {
     expect((await (await as("other")).json(memberPath, { method: "POST", body: { contentType: "image/jpeg", size: 1000 } })).status).toBe(404);
 
     // A photo added to an existing member is confirmed, attached and audited.
-    const { complete } = await uploadPhoto(await as("supervisor"), memberPath, await jpeg());
+    const { complete } = await uploadPhoto({ by: await as("supervisor"), presignPath: memberPath, bytes: await jpeg() });
     expect(complete!.status).toBe(200);
     expect((await (await as("other")).json(`/api/v1/photos/${complete!.body.photo.id}/complete`, { method: "POST" })).status).toBe(404);
     const read = await engineer.json<{ photos: { id: string }[] }>(`/api/v1/members/${created.body.member.id}`);

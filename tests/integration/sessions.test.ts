@@ -6,7 +6,7 @@ import { db, sql } from "@/db";
 import { organisations, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { APP_URL, DEMO_PASSWORD, signInAs, type Client } from "../support/http";
-import { site, ORCHARD, unique } from "../support/permits";
+import { ORCHARD, site, uniqueTag } from "../support/fixtures";
 
 afterAll(async () => {
   await sql.end({ timeout: 5 });
@@ -60,13 +60,13 @@ describe("invitation sending", () => {
   it("is limited to 30 an hour per admin, counted in the database (429 with a sentence after that)", async () => {
     const orchard = await site(ORCHARD);
     const [org] = await db.select().from(organisations).where(eq(organisations.id, orchard.organisationId));
-    const email = `${unique("admin")}@demo.example`.toLowerCase();
+    const email = `${uniqueTag("admin")}@demo.example`.toLowerCase();
     await db.insert(users).values({ organisationId: org!.id, email, name: "Rate Limit Admin", passwordHash: await hashPassword(DEMO_PASSWORD), isOrgAdmin: true });
     const admin = await signInAs(email);
     const invite = (i: number) =>
       admin.json<{ error?: { code: string; message: string } }>(`/api/v1/sites/${orchard.id}/invitations`, {
         method: "POST",
-        body: { email: `${unique("invitee")}-${i}@invited.example`.toLowerCase(), roles: ["engineer"] },
+        body: { email: `${uniqueTag("invitee")}-${i}@invited.example`.toLowerCase(), roles: ["engineer"] },
       });
     for (let i = 0; i < 30; i++) expect((await invite(i)).status, `invitation ${i + 1}`).toBe(201);
     const over = await invite(30);
