@@ -3,6 +3,7 @@
 // not found or not yours → 403 role not allowed → 422 bad input — and hands the use case a typed
 // context. Use cases take that context and never re-derive access.
 import "server-only";
+import "@/lib/validations/messages";
 import type { z } from "zod";
 import type { SiteRole } from "@/db/schema";
 import { listUserSites } from "@/db/queries/users";

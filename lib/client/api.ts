@@ -1,4 +1,5 @@
 // Browser-side calls to /api/v1 with the error shape the API always returns.
+import "@/lib/validations/messages";
 export type ApiError = { status: number; code: string; message: string; fields: Record<string, string>; offline?: boolean };
 export type ApiResult<T> = { ok: true; status: number; data: T } | { ok: false; error: ApiError };
 

@@ -3,13 +3,13 @@ import { z } from "zod";
 import { designCode, siteRole, unitSystem } from "@/db/schema";
 import { MAX_PASSWORD_LENGTH } from "@/lib/auth/password-policy";
 
-const email = z.string().trim().min(1, "Enter an e-mail address.").max(254, "That e-mail address is too long.").email("Enter a valid e-mail address.");
-const personName = z.string().trim().min(1, "Enter a name.").max(120, "Use at most 120 characters.");
+const email = z.string({ error: () => "Enter an e-mail address." }).trim().min(1, "Enter an e-mail address.").max(254, "That e-mail address is too long.").email("Enter a valid e-mail address.");
+const personName = z.string({ error: () => "Enter a name." }).trim().min(1, "Enter a name.").max(120, "Use at most 120 characters.");
 /** The length and guessability rules run on the server (lib/auth/password-policy.ts) with the person's name and e-mail. */
-const password = z.string().min(1, "Enter a password.").max(MAX_PASSWORD_LENGTH, `Use at most ${MAX_PASSWORD_LENGTH} characters.`);
+const password = z.string({ error: () => "Enter a password." }).min(1, "Enter a password.").max(MAX_PASSWORD_LENGTH, `Use at most ${MAX_PASSWORD_LENGTH} characters.`);
 
 export const setupSchema = z.object({
-  organisationName: z.string().trim().min(2, "Enter your organisation's name.").max(120, "Use at most 120 characters."),
+  organisationName: z.string({ error: () => "Enter your organisation's name." }).trim().min(2, "Enter your organisation's name.").max(120, "Use at most 120 characters."),
   name: personName,
   email,
   password,
@@ -26,20 +26,20 @@ function validTimezone(tz: string) {
 }
 
 const siteFields = {
-  name: z.string().trim().min(2, "Enter the site's name.").max(120, "Use at most 120 characters."),
+  name: z.string({ error: () => "Enter the site's name." }).trim().min(2, "Enter the site's name.").max(120, "Use at most 120 characters."),
   code: z
-    .string()
+    .string({ error: () => "Enter a short code (2–12 letters or digits)." })
     .trim()
     .min(2, "Enter a short code (2–12 letters or digits).")
     .max(12, "Use at most 12 characters.")
     .regex(/^[A-Za-z0-9-]+$/, "Use letters, digits and hyphens only."),
-  address: z.string().trim().max(300, "Use at most 300 characters.").nullish(),
+  address: z.string({ error: () => "The address is text." }).trim().max(300, "Use at most 300 characters.").nullish(),
   units: z.enum(unitSystem.enumValues, { error: "Choose SI (mm, kN) or US (in, kip)." }),
   basis: z.enum(["eurocode", "aisc-lrfd", "aisc-asd", "aisc"], { error: "Choose the design basis: Eurocode or AISC." }),
-  inspectionIntervalDays: z.int("Enter whole days.").min(1, "At least 1 day.").max(90, "At most 90 days."),
-  permitValidityDays: z.int("Enter whole days.").min(1, "At least 1 day.").max(90, "At most 90 days."),
-  permitWarningHours: z.int("Enter whole hours.").min(1, "At least 1 hour.").max(168, "At most 168 hours (7 days)."),
-  timezone: z.string().trim().refine(validTimezone, "Choose a time zone such as Europe/London."),
+  inspectionIntervalDays: z.int({ error: () => "Enter the inspection interval in whole days." }).min(1, "At least 1 day.").max(90, "At most 90 days."),
+  permitValidityDays: z.int({ error: () => "Enter the permit validity in whole days." }).min(1, "At least 1 day.").max(90, "At most 90 days."),
+  permitWarningHours: z.int({ error: () => "Enter the warning time in whole hours." }).min(1, "At least 1 hour.").max(168, "At most 168 hours (7 days)."),
+  timezone: z.string({ error: () => "Choose a time zone such as Europe/London." }).trim().refine(validTimezone, "Choose a time zone such as Europe/London."),
 };
 
 export const siteCreateSchema = z.object({
@@ -85,6 +85,6 @@ export const rolesSchema = z.object({ roles: roles.refine((r) => r.length > 0, "
 export const resetRequestSchema = z.object({ email });
 export const resetPasswordSchema = z.object({ password });
 export const changePasswordSchema = z.object({
-  currentPassword: z.string().min(1, "Enter your current password."),
+  currentPassword: z.string({ error: () => "Enter your current password." }).min(1, "Enter your current password."),
   newPassword: password,
 });
