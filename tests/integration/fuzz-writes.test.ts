@@ -2,14 +2,13 @@
 // declares (discovered from app/api/**/route.ts and the seam's metadata, so a new route is covered
 // the day it is added). Each must be refused with a 4xx — never a 5xx — and nothing may be stored.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import fs from "node:fs";
-import path from "node:path";
 import fc from "fast-check";
 import { eq } from "drizzle-orm";
 import { db, sql } from "@/db";
 import { memberships, organisations, users } from "@/db/schema";
 import type { RouteMeta } from "@/lib/api/route";
 import { hashPassword } from "@/lib/auth/password";
+import { declaredRoutes } from "../support/routes";
 import { DEMO_PASSWORD, signInAs, type Client } from "../support/http";
 import { makeMember, requestLoad, site, uniqueTag } from "../support/fixtures";
 
@@ -20,26 +19,14 @@ const TOTAL_RUNS = 2000;
 type Parser = NonNullable<RouteMeta["parser"]>;
 type WriteRoute = { method: (typeof WRITE)[number]; template: string; meta: RouteMeta };
 
-function routeFiles(dir: string): string[] {
-  return fs.readdirSync(dir, { withFileTypes: true }).flatMap((d) => {
-    const p = path.join(dir, d.name);
-    if (d.isDirectory()) return d.name.startsWith("[...") ? [] : routeFiles(p);
-    return d.name === "route.ts" ? [p] : [];
-  });
-}
-
+/** The write routes that read a body, with a URL template such as /api/v1/sites/[siteId]/zones. */
 async function discover(): Promise<WriteRoute[]> {
-  const apiDir = path.resolve(import.meta.dirname, "../../app/api");
-  const out: WriteRoute[] = [];
-  for (const file of routeFiles(apiDir)) {
-    const template = "/api/" + path.relative(apiDir, path.dirname(file)).split(path.sep).join("/");
-    const mod = (await import(file)) as Record<string, unknown>;
-    for (const method of WRITE) {
-      const h = mod[method] as { meta?: RouteMeta } | undefined;
-      if (h?.meta && h.meta.body !== "none") out.push({ method, template, meta: h.meta });
-    }
-  }
-  return out;
+  const routes = await declaredRoutes({ skip: ["app/api/auth/[...nextauth]/route.ts"] });
+  return routes.flatMap((r) =>
+    (WRITE as readonly string[]).includes(r.method) && r.meta && r.meta.body !== "none"
+      ? [{ method: r.method as WriteRoute["method"], template: r.url, meta: r.meta }]
+      : [],
+  );
 }
 
 /** Whether the route's own parser would take this body: such bodies are valid and not sent. */

@@ -6,18 +6,14 @@
 // permission table (lib/permissions.ts) refuses → 403; each role it allows → neither 401, 403 nor
 // 404 (and never a 500). Mutating requests carry a body that is not JSON, so an allowed role gets
 // 422 and nothing in the database changes.
-import fs from "node:fs";
-import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "@/db";
-import type { RouteMeta } from "@/lib/api/route";
 import { rolesAllowPure } from "@/lib/permissions";
 import { putObject } from "@/lib/storage";
 import type { SiteRole } from "@/db/schema";
 import { anonymous, signInAs, type Client } from "../support/http";
+import { declaredRoutes, routeFiles, type Method } from "../support/routes";
 
-const ROOT = path.resolve(import.meta.dirname, "../..");
-const API_DIR = path.join(ROOT, "app/api");
 
 /** next-auth's own handler: not ours to wrap. */
 const NOT_OURS = ["app/api/auth/[...nextauth]/route.ts"];
@@ -25,31 +21,8 @@ const NOT_OURS = ["app/api/auth/[...nextauth]/route.ts"];
 /** Routes not yet on the seam: none. A route listed here that is on the seam fails the test. */
 const NOT_YET_ON_SEAM: string[] = [];
 
-const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
-type Method = (typeof METHODS)[number];
-type Handler = ((req: Request, ctx: unknown) => Promise<Response>) & { meta?: RouteMeta };
-
-function findRoutes(dir: string): string[] {
-  const out: string[] = [];
-  for (const e of fs.readdirSync(dir, { withFileTypes: true })) {
-    const p = path.join(dir, e.name);
-    if (e.isDirectory()) out.push(...findRoutes(p));
-    else if (e.name === "route.ts") out.push(path.relative(ROOT, p).split(path.sep).join("/"));
-  }
-  return out.sort();
-}
-
-const files = findRoutes(API_DIR);
-const routes: { file: string; url: string; method: Method; meta: RouteMeta | undefined }[] = [];
-for (const file of files) {
-  if (NOT_OURS.includes(file)) continue;
-  const mod = (await import(path.join(ROOT, file))) as Partial<Record<Method, Handler>>;
-  for (const method of METHODS) {
-    const h = mod[method];
-    if (typeof h !== "function") continue;
-    routes.push({ file, url: "/" + file.replace(/^app\//, "").replace(/\/route\.ts$/, ""), method, meta: h.meta });
-  }
-}
+const files = routeFiles();
+const routes = await declaredRoutes({ skip: NOT_OURS });
 
 const DEMO = ["admin", "coordinator", "engineer", "supervisor", "designer", "manager"].map((r) => `${r}@demo.example`);
 const OTHER_ADMIN = "admin@other.example";
