@@ -16,7 +16,7 @@ import { eulerLoad, EULER_SOURCE } from "./euler";
 import { E_STEEL_AISC_MPA, E_STEEL_EN_MPA } from "./materials";
 import type { SectionProperties } from "./sections";
 import { fieldError, fmt, step } from "./steps";
-import type { CalculationRequest, CheckPart, FieldError, Section, Step } from "./types";
+import type { Basis, CalculationRequest, CheckPart, DesignBasis, FieldError, Section, Step } from "./types";
 
 /** Least elastic section modulus W_el = I_min / (distance to the extreme fibre about that axis). */
 export function leastElasticModulus(section: Section, props: SectionProperties): number | undefined {
@@ -32,6 +32,11 @@ export function leastElasticModulus(section: Section, props: SectionProperties):
     case "given":
       return undefined;
   }
+}
+
+/** What a combined (axial + bending) capacity is: a design resistance (EN), or AISC's available or allowable strength. */
+export function combinedBasis(code: "en1993" | "aisc360", designBasis: DesignBasis | undefined): Basis {
+  return code === "en1993" ? "design-resistance" : designBasis === "asd" ? "allowable-strength" : "available-strength";
 }
 
 export interface CombinedInput {

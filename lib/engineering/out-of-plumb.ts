@@ -14,7 +14,7 @@
 // covers and fails; within it, the axial force N/cos θ is compared with the
 // safe working load and the horizontal force the head needs is given.
 
-import { combinedSteel } from "./combined";
+import { combinedBasis, combinedSteel } from "./combined";
 import { runEn1065 } from "./en1065";
 import { fieldError, fmt, step } from "./steps";
 import type { CalculationRequest, FieldError, MethodOutcome, Step } from "./types";
@@ -145,7 +145,7 @@ export function runOutOfPlumb(req: CalculationRequest): MethodOutcome {
     ok: true,
     value: {
       capacityN: combined.capacityN,
-      basis: code === "en1993" ? "design-resistance" : req.designBasis === "asd" ? "allowable-strength" : "available-strength",
+      basis: combinedBasis(code, req.designBasis),
       loadBasis:
         code === "en1993"
           ? "Factored (ULS) vertical load N_Ed; the capacity is the axial force at which the combined check reaches 1 for the same lean and eccentricity."

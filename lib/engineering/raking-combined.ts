@@ -4,7 +4,7 @@
 // length, and any load eccentricity e at the ends adds N·e. Both are amplified
 // and checked with the axial force (EN 1993-1-1 §6.3.3 or AISC 360-16 §H1.1).
 
-import { combinedSteel } from "./combined";
+import { combinedBasis, combinedSteel } from "./combined";
 import { fieldError, fmt, step } from "./steps";
 import type { CalculationRequest, FieldError, MethodOutcome, Step } from "./types";
 
@@ -57,7 +57,7 @@ export function runRakingCombined(req: CalculationRequest): MethodOutcome {
     ok: true,
     value: {
       capacityN: combined.capacityN,
-      basis: code === "en1993" ? "design-resistance" : req.designBasis === "asd" ? "allowable-strength" : "available-strength",
+      basis: combinedBasis(code, req.designBasis),
       loadBasis:
         code === "en1993"
           ? "Factored (ULS) axial force in the raker N_Ed; the capacity is the axial force at which the combined check reaches 1 with the same self-weight and eccentricity."

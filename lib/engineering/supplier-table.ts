@@ -12,15 +12,10 @@ import type { CalculationRequest, FieldError, MethodOutcome, Step, TableRow } fr
 /** Fraction of the last row's length within which a warning says the member is at the end of its rated range. */
 export const TABLE_END_MARGIN = 0.02;
 
-/**
- * Straight-line interpolation in a sorted table (kept for comparison and the
- * bench; the method itself reads on the 1/L² basis below); lengths must be strictly increasing
- * and `x` inside [lengths[0], lengths[n-1]]. Returns NaN outside, so callers
- * must range-check first (the wrapper does).
- */
-export function interpolateTable(lengths: ArrayLike<number>, loads: ArrayLike<number>, x: number): number {
+/** The row at or below `x` (binary search; the next row is above it), or -1 outside the table. */
+function bracket(lengths: ArrayLike<number>, x: number): number {
   const n = lengths.length;
-  if (n < 2 || x < lengths[0] || x > lengths[n - 1]) return Number.NaN;
+  if (n < 2 || !(x >= lengths[0]) || !(x <= lengths[n - 1])) return -1;
   let lo = 0;
   let hi = n - 1;
   while (hi - lo > 1) {
@@ -28,6 +23,19 @@ export function interpolateTable(lengths: ArrayLike<number>, loads: ArrayLike<nu
     if (lengths[mid] <= x) lo = mid;
     else hi = mid;
   }
+  return lo;
+}
+
+/**
+ * Straight-line interpolation in a sorted table (kept for comparison and the
+ * bench; the method itself reads on the 1/L² basis below); lengths must be strictly increasing
+ * and `x` inside [lengths[0], lengths[n-1]]. Returns NaN outside, so callers
+ * must range-check first (the wrapper does).
+ */
+export function interpolateTable(lengths: ArrayLike<number>, loads: ArrayLike<number>, x: number): number {
+  const lo = bracket(lengths, x);
+  if (lo < 0) return Number.NaN;
+  const hi = lo + 1;
   const x0 = lengths[lo];
   const x1 = lengths[hi];
   const t = (x - x0) / (x1 - x0);
@@ -40,15 +48,9 @@ export function interpolateTable(lengths: ArrayLike<number>, loads: ArrayLike<nu
  * straight-line value, because 1/L² is convex in L.
  */
 export function interpolateTableInverseSquare(lengths: ArrayLike<number>, loads: ArrayLike<number>, x: number): number {
-  const n = lengths.length;
-  if (n < 2 || x < lengths[0] || x > lengths[n - 1]) return Number.NaN;
-  let lo = 0;
-  let hi = n - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (lengths[mid] <= x) lo = mid;
-    else hi = mid;
-  }
+  const lo = bracket(lengths, x);
+  if (lo < 0) return Number.NaN;
+  const hi = lo + 1;
   const u0 = 1 / (lengths[lo] * lengths[lo]);
   const u1 = 1 / (lengths[hi] * lengths[hi]);
   const u = 1 / (x * x);
