@@ -1,6 +1,9 @@
 // Typed errors with a public message (shown to users) and an internal cause (logged only).
 export type FieldErrors = Record<string, string>;
 
+/** Node's error codes for a peer that cannot be reached (refused, reset, timed out, not found). */
+export const NETWORK_ERROR_CODES: ReadonlySet<string> = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "EPIPE", "ENOTFOUND", "EAI_AGAIN"]);
+
 export class AppError extends Error {
   constructor(
     readonly status: number,

@@ -6,7 +6,7 @@ import {
 } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
+import { AppError, NETWORK_ERROR_CODES } from "@/lib/errors";
 
 /** The store cannot be reached (down, refused, timed out): a 503 with a sentence, never a stack trace. */
 export class StorageUnavailableError extends AppError {
@@ -22,7 +22,7 @@ function isUnreachable(e: unknown): boolean {
   const code = (e as { code?: string })?.code ?? (e as { cause?: { code?: string } })?.cause?.code;
   const name = (e as Error)?.name;
   return (
-    ["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "EPIPE", "ENOTFOUND", "EAI_AGAIN"].includes(code ?? "") ||
+    NETWORK_ERROR_CODES.has(code ?? "") ||
     ["TimeoutError", "RequestTimeout", "NetworkingError"].includes(name ?? "") ||
     (e as Error)?.constructor?.name === "AggregateError"
   );

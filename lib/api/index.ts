@@ -1,7 +1,7 @@
 // Route-handler plumbing: one error shape ({ error: { code, message, fields? } }) and status.
 import "server-only";
 import { NextResponse } from "next/server";
-import { AppError, errorBody } from "@/lib/errors";
+import { AppError, errorBody, NETWORK_ERROR_CODES } from "@/lib/errors";
 
 type Ctx<P> = { params: Promise<P> };
 
@@ -32,7 +32,7 @@ export function apiHandler<P = Record<string, string>>(
 }
 
 const UNAVAILABLE_CODES = new Set([
-  "ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "EPIPE", "ENOTFOUND", "EAI_AGAIN",
+  ...NETWORK_ERROR_CODES,
   "CONNECTION_CLOSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "CONNECT_TIMEOUT",
   // PostgreSQL: admin shutdown, crash shutdown, cannot connect now, too many connections.
   "57P01", "57P02", "57P03", "53300",
