@@ -194,7 +194,10 @@ describe("overload, failing e-mail and digest", () => {
     const digestAt = at(2 * HOUR);
     const [one, two] = await Promise.all([sendDailyDigests({ now: digestAt, userIds: users }), sendDailyDigests({ now: digestAt, userIds: users })]);
     expect(one + two).toBe(1); // the manager only: the coordinator chose in-app, not digest
-    expect(await sendDailyDigests({ now: at(3 * HOUR), userIds: users })).toBe(0); // same day
+    // Later the same (UTC) day: an hour on, but never past midnight, whatever time of day the suite runs.
+    const endOfDigestDay = Date.UTC(digestAt.getUTCFullYear(), digestAt.getUTCMonth(), digestAt.getUTCDate(), 23, 59, 59, 999);
+    const sameDayLater = new Date(Math.min(at(3 * HOUR).getTime(), endOfDigestDay));
+    expect(await sendDailyDigests({ now: sameDayLater, userIds: users })).toBe(0); // same day
     const digests = await db.select().from(outbox).where(and(eq(outbox.toUserId, fx.people.manager.id), like(outbox.kind, "alert:digest:%")));
     expect(digests).toHaveLength(1);
     expect(digests[0]!.text).toContain("PRF-1: inspection overdue");
