@@ -89,10 +89,6 @@ export async function listItems(): Promise<OutboxItem[]> {
   return (await db()).getAllFromIndex("items", "queuedAt");
 }
 
-export async function getItem(id: string) {
-  return (await db()).get("items", id);
-}
-
 /** Stores the item and its photos' bytes in one transaction: both or neither. */
 export async function putItem(item: OutboxItem, blobs: { clientId: string; blob: Blob }[] = []) {
   const tx = (await db()).transaction(["items", "blobs"], "readwrite");
