@@ -34,7 +34,10 @@ export function OfflineSupport({ renderedAt, siteRoot }: { renderedAt: string; s
   useEffect(() => {
     if (!("serviceWorker" in navigator) || !navigator.onLine) return;
     let cancelled = false;
-    void (async () => {
+    // Registered at once; the round's pages are fetched only after the person has stayed on a page
+    // for a while, so the extra page renders never compete with what they are doing right now.
+    void navigator.serviceWorker.register("/sw.js", { scope: "/" }).catch(() => undefined);
+    const timer = window.setTimeout(() => void (async () => {
       try {
         await navigator.serviceWorker.register("/sw.js", { scope: "/" });
         const reg = await navigator.serviceWorker.ready;
@@ -53,9 +56,10 @@ export function OfflineSupport({ renderedAt, siteRoot }: { renderedAt: string; s
       } catch {
         /* no service worker (not built in development): the app still works online */
       }
-    })();
+    })(), 8_000);
     return () => {
       cancelled = true;
+      window.clearTimeout(timer);
     };
   }, [pathname, siteRoot]);
 
