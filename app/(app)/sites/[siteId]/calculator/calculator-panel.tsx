@@ -4,6 +4,8 @@ import { Icon } from "@/components/icons";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { useLocalDraft } from "@/components/use-local-draft";
+import { apiJson } from "@/lib/client/api";
+import { typeToForm, type LibraryType } from "@/lib/calculator/from-type";
 import { plausibilityWarnings, speakUnits, switchUnits, type UnitSwitchMemory } from "@/lib/calculator/units-speech";
 import { useForm, type UseFormRegister } from "react-hook-form";
 import { Button } from "@/components/ui/button";
@@ -65,6 +67,28 @@ export function CalculatorPanel({ siteId, defaultUnits, defaultDesignCode }: Pro
     setFormError(null);
   };
   const plausible = plausibilityWarnings(watch());
+  const [library, setLibrary] = useState<LibraryType[] | null>(null);
+  const [fromType, setFromType] = useState<string | null>(null);
+  useEffect(() => {
+    let live = true;
+    void apiJson<{ items: LibraryType[] }>(`/api/v1/sites/${siteId}/member-types`).then((r) => {
+      if (live) setLibrary(r.ok ? r.data.items.filter((t) => typeToForm(t, CALCULATOR_DEFAULTS, defaultDesignCode) !== null) : []);
+    });
+    return () => {
+      live = false;
+    };
+  }, [siteId, defaultDesignCode]);
+  const startFromType = (id: string) => {
+    const type = library?.find((t) => t.id === id);
+    if (!type) return;
+    const values = typeToForm(type, getValues(), defaultDesignCode);
+    if (!values) return;
+    unitMemory.current = null;
+    reset(values, { keepDefaultValues: true });
+    setFromType(type.name);
+    setOutcome(null);
+    setFormError(null);
+  };
   const errors = formState.errors;
   const method = watch("method");
   const units = watch("units");
@@ -128,6 +152,18 @@ export function CalculatorPanel({ siteId, defaultUnits, defaultDesignCode }: Pro
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,24rem)_1fr]">
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-xl border-2 border-ink/15 bg-paper-raised p-4" aria-label="Calculation inputs">
+        {library && library.length ? (
+          <Field id="fromType" label="Start from a library type (optional)" hint={fromType ? `Inputs filled from the library type “${fromType}”; change any value before calculating.` : "Fills the method and the type's section, material or range."}>
+            <select id="fromType" className={inputClass} value="" onChange={(e) => startFromType(e.target.value)}>
+              <option value="">— choose a type —</option>
+              {library.map((t) => (
+                <option key={t.id} value={t.id}>
+                  {t.name}
+                </option>
+              ))}
+            </select>
+          </Field>
+        ) : null}
         <Field id="method" label="Method" hint={info.description}>
           <select id="method" className={inputClass} {...register("method")}>
             <optgroup label="Member capacity">
