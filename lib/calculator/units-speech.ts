@@ -215,3 +215,17 @@ export function switchUnits(values: CalculatorForm, to: UnitSystem, memory: Unit
   }
   return { values: out, memory: { before: values, after: out } };
 }
+
+const STEP_UNITS: Record<string, { q: Quantity; scale: number }> = {
+  mm: { q: "dim", scale: 1 }, "mm²": { q: "area", scale: 1 }, "mm⁴": { q: "inertia", scale: 1 },
+  N: { q: "force", scale: 1 }, kN: { q: "force", scale: 1000 },
+  MPa: { q: "stress", scale: 1 }, "N/mm²": { q: "stress", scale: 1 },
+  kPa: { q: "pressure", scale: 1 }, "kN/m²": { q: "pressure", scale: 1 }, "N/m": { q: "lineLoad", scale: 1 },
+};
+
+/** A working step's value for display in the chosen units (the engine's own step stays SI). */
+export function stepInUnits(value: number | string, unit: string, units: UnitSystem): { value: number | string; unit: string } {
+  const known = STEP_UNITS[unit];
+  if (units === "si" || typeof value !== "number" || !known) return { value, unit };
+  return { value: fromSi(known.q, value * known.scale, "us"), unit: UNIT_WORDS.us[known.q] };
+}
