@@ -32,7 +32,7 @@ export default defineConfig({
     {
       name: "desktop",
       // Phone-only journeys (logging a member from the camera) run in the phone project alone.
-      testIgnore: [/log-member\.spec\.ts/, /onboarding-empty\.spec\.ts/],
+      testIgnore: [/log-member\.spec\.ts/, /offline-capture\.spec\.ts/, /onboarding-empty\.spec\.ts/],
       use: { browserName: "chromium", viewport: { width: 1366, height: 850 }, launchOptions: chromium },
     },
     {

@@ -2,6 +2,8 @@ import Link from "next/link";
 import type { ReactNode } from "react";
 import { Icon } from "@/components/icons";
 import { BottomNav, SideNav } from "@/components/nav-links";
+import { OfflineSupport } from "@/components/offline/offline-support";
+import { OutboxBadge } from "@/components/offline/outbox-badge";
 import type { SessionUser } from "@/lib/auth";
 import type { NavItem } from "@/lib/navigation";
 
@@ -27,6 +29,8 @@ export function AppShell({
             {context ? <div className="truncate text-sm font-semibold">{context}</div> : null}
           </div>
           <div className="hidden md:block" />
+          <div className="flex items-center gap-2">
+          <OutboxBadge />
           <details className="relative">
             <summary className="flex min-h-touch cursor-pointer list-none items-center gap-2 rounded-lg px-2 font-semibold hover:bg-paper-sunk" aria-label="Account menu">
               <Icon name="user" />
@@ -47,7 +51,10 @@ export function AppShell({
               </Link>
             </div>
           </details>
+          </div>
         </header>
+        {/* When this page was made: a copy kept for offline use shows it in the offline banner. */}
+        <OfflineSupport renderedAt={new Date().toISOString()} siteRoot={rootHref.startsWith("/sites/") ? rootHref : undefined} />
         <main className="mx-auto w-full max-w-6xl flex-1 p-4 md:p-6 print:max-w-none print:p-0">{children}</main>
       </div>
       <BottomNav items={nav} rootHref={rootHref} />

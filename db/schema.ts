@@ -242,11 +242,16 @@ export const members = pgTable(
     installedBy: uuid("installed_by").references(() => users.id),
     installedAt: timestamp("installed_at", { withTimezone: true }),
     createdBy: uuid("created_by").references(() => users.id),
+    /** UUID made on the phone for this create: a retried request returns this member instead of a second one. */
+    clientId: uuid("client_id"),
+    /** Bumped on every update, so an edit made against an older copy is refused rather than overwriting. */
+    version: integer("version").notNull().default(1),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
   (t) => [
     uniqueIndex("members_site_tag").on(t.siteId, t.tag),
+    uniqueIndex("members_site_client").on(t.siteId, t.clientId),
     index("members_site_created").on(t.siteId, t.createdAt, t.id),
     index("members_site_status").on(t.siteId, t.status, t.tag),
     index("members_site_zone").on(t.siteId, t.zoneId, t.tag),
@@ -299,9 +304,15 @@ export const photos = pgTable(
     takenAt: timestamp("taken_at", { withTimezone: true }),
     status: photoStatus("status").notNull().default("pending"),
     rejectReason: text("reject_reason"),
+    /** UUID made on the phone for this upload: a retried start returns the same photo. */
+    clientId: uuid("client_id"),
     createdAt: createdAt(),
   },
-  (t) => [index("photos_member").on(t.memberId), index("photos_inspection").on(t.inspectionId)],
+  (t) => [
+    index("photos_member").on(t.memberId),
+    index("photos_inspection").on(t.inspectionId),
+    uniqueIndex("photos_site_client").on(t.siteId, t.clientId),
+  ],
 );
 
 export const inspections = pgTable(
@@ -316,9 +327,11 @@ export const inspections = pgTable(
     notes: text("notes"),
     inspectedAt: timestamp("inspected_at", { withTimezone: true }).notNull().defaultNow(),
     nextDueAt: timestamp("next_due_at", { withTimezone: true }),
+    /** UUID made on the phone for this inspection: a retried request returns this one instead of a second. */
+    clientId: uuid("client_id"),
     createdAt: createdAt(),
   },
-  (t) => [index("inspections_member").on(t.memberId, t.inspectedAt)],
+  (t) => [index("inspections_member").on(t.memberId, t.inspectedAt), uniqueIndex("inspections_member_client").on(t.memberId, t.clientId)],
 );
 
 /** A coordinator's trigger ("after any incident or adverse weather"): inspections due now. */

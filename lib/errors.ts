@@ -41,7 +41,8 @@ export class ValidationError extends AppError {
 }
 
 export class ConflictError extends AppError {
-  constructor(message: string, fields?: FieldErrors) {
+  /** `current`: the record as it stands now, for a client that must show both versions and ask. */
+  constructor(message: string, fields?: FieldErrors, readonly current?: unknown) {
     super(409, "conflict", message, fields);
   }
 }
@@ -63,5 +64,6 @@ export function fieldErrorsFromZod(issues: { path: PropertyKey[]; message: strin
 }
 
 export function errorBody(e: AppError) {
-  return { error: { code: e.code, message: e.message, ...(e.fields ? { fields: e.fields } : {}) } };
+  const current = e instanceof ConflictError && e.current !== undefined ? { current: e.current } : {};
+  return { error: { code: e.code, message: e.message, ...(e.fields ? { fields: e.fields } : {}), ...current } };
 }

@@ -330,7 +330,7 @@ export function runTsx(script, env, args = []) {
 /** True when the build in distDir is older than any source file. */
 export function needsBuild(distDir) {
   const idFile = path.join(root, distDir, "BUILD_ID");
-  if (!fs.existsSync(idFile)) return true;
+  if (!fs.existsSync(idFile) || !fs.existsSync(path.join(root, distDir, "sw.js"))) return true;
   const built = fs.statSync(idFile).mtimeMs;
   const dirs = ["app", "components", "lib", "db", "emails", "public"];
   const files = ["package-lock.json", "next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json"];
@@ -346,6 +346,8 @@ export function needsBuild(distDir) {
 export function build(p) {
   log(`building the app (${p.distDir})…`);
   run(nextBin, ["build"], { cwd: root, env: { ...process.env, ...p.env } });
+  // The service worker is bundled from the build's output (precache list of the app shell).
+  run(process.execPath, [path.join(root, "scripts", "build-sw.mjs"), p.distDir], { cwd: root, env: { ...process.env, ...p.env } });
 }
 
 export async function ensureWorker(p) {

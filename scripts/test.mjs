@@ -102,7 +102,11 @@ try {
     step("dead code (knip)", bin("knip"), []);
   }
   if (want("unit")) step("unit tests", bin("vitest"), ["run", "--project", "unit", ...vitestReport("unit"), ...files("unit")]);
-  const built = !(want("integration") || want("e2e")) || !needsBuild(p.distDir) || step(`build (${p.distDir})`, bin("next"), ["build"]);
+  // The service worker is built from the app's build output (scripts/build-sw.mjs), right after it.
+  const built =
+    !(want("integration") || want("e2e")) ||
+    !needsBuild(p.distDir) ||
+    (step(`build (${p.distDir})`, bin("next"), ["build"]) && step("service worker (sw.js)", process.execPath, [path.join(root, "scripts", "build-sw.mjs"), p.distDir]));
   if (!built) throw new Error("the app did not build; integration and end-to-end tests were not run");
   if (want("integration")) {
     // Integration tests talk to the running app over HTTP and start their own workers.

@@ -9,12 +9,14 @@ import { apiJson, putWithProgress } from "@/lib/client/api";
 const MAX_BYTES = 15 * 1024 * 1024;
 
 export type UploadedPhoto = { photoId: string; name: string; thumbnailUrl: string | null };
+/** A photo taken with no signal: sent from the outbox with its entry. */
+export type QueuedFile = { name: string; blob: Blob };
 
 type Item = {
   key: string;
   name: string;
   file: File | null;
-  status: "uploading" | "checking" | "ready" | "failed";
+  status: "uploading" | "checking" | "ready" | "failed" | "queued";
   progress: number;
   error?: string;
   photoId?: string;
@@ -27,7 +29,7 @@ export function PhotoUploader({
   /** POST { contentType, size } → { photoId, uploadUrl } */
   presignPath: string;
   initial?: UploadedPhoto[];
-  onChange?: (ready: UploadedPhoto[], busy: boolean) => void;
+  onChange?: (ready: UploadedPhoto[], busy: boolean, queued: QueuedFile[]) => void;
   label?: string;
 }) {
   const [items, setItems] = useState<Item[]>(() =>
@@ -42,6 +44,7 @@ export function PhotoUploader({
     onChangeRef.current?.(
       items.filter((i) => i.status === "ready" && i.photoId).map((i) => ({ photoId: i.photoId!, name: i.name, thumbnailUrl: i.thumbnailUrl ?? null })),
       items.some((i) => i.status === "uploading" || i.status === "checking"),
+      items.filter((i) => i.status === "queued" && i.file).map((i) => ({ name: i.name, blob: i.file! })),
     );
   }, [items]);
 
@@ -55,7 +58,10 @@ export function PhotoUploader({
         return;
       }
       const contentType = file.type && file.type.startsWith("image/") ? file.type : "image/jpeg";
+      // No signal: the photo waits on the phone and goes with the entry from the outbox.
+      if (!navigator.onLine) return patch(key, { status: "queued" });
       const start = await apiJson<{ photoId: string; uploadUrl: string }>(presignPath, { body: { contentType, size: file.size } });
+      if (!start.ok && start.error.offline) return patch(key, { status: "queued" });
       if (!start.ok) {
         patch(key, { status: "failed", error: Object.values(start.error.fields)[0] ?? start.error.message });
         return;
@@ -63,6 +69,7 @@ export function PhotoUploader({
       try {
         await putWithProgress(start.data.uploadUrl, file, contentType, (f) => patch(key, { progress: f }));
       } catch (e) {
+        if (!navigator.onLine) return patch(key, { status: "queued" });
         patch(key, { status: "failed", error: (e as Error).message });
         return;
       }
@@ -121,6 +128,8 @@ export function PhotoUploader({
                   </>
                 ) : it.status === "checking" ? (
                   <p className="text-sm">Checking the photo…</p>
+                ) : it.status === "queued" ? (
+                  <p className="text-sm font-semibold">No signal: kept on this phone, sent with the entry</p>
                 ) : it.status === "ready" ? (
                   <p className="flex items-center gap-1 text-sm font-semibold text-ok">
                     <Icon name="ok" className="h-4 w-4" /> Uploaded
@@ -136,7 +145,7 @@ export function PhotoUploader({
                   Retry
                 </button>
               ) : null}
-              {it.status === "ready" || it.status === "failed" ? (
+              {it.status === "ready" || it.status === "failed" || it.status === "queued" ? (
                 <button
                   type="button"
                   aria-label={`Remove ${it.name}`}

@@ -10,6 +10,11 @@ export async function insertCheck(values: NewCheck, tx: DbOrTx = db): Promise<Ch
   return row!;
 }
 
+export async function getCheck({ checkId }: { checkId: string }, tx: DbOrTx = db): Promise<Check | null> {
+  const [row] = await tx.select().from(checks).where(eq(checks.id, checkId)).limit(1);
+  return row ?? null;
+}
+
 /** Inserts many checks (in the order given) and returns their ids in the same order. */
 export async function insertChecks(values: NewCheck[], tx: DbOrTx = db): Promise<string[]> {
   const ids: string[] = [];

@@ -40,6 +40,28 @@ export async function getLatestInspection({ memberId }: { memberId: string }, tx
   return row ?? null;
 }
 
+/** The inspection a phone already recorded with this clientId for this member (a retried request), if any. */
+export async function getInspectionByClientId({ memberId, clientId }: { memberId: string; clientId: string }, tx: DbOrTx = db) {
+  const [row] = await tx
+    .select({
+      id: inspections.id,
+      memberId: inspections.memberId,
+      result: inspections.result,
+      items: inspections.items,
+      notes: inspections.notes,
+      inspectedAt: inspections.inspectedAt,
+      nextDueAt: inspections.nextDueAt,
+      inspectorName: users.name,
+    })
+    .from(inspections)
+    .leftJoin(users, eq(users.id, inspections.inspectorId))
+    .where(and(eq(inspections.memberId, memberId), eq(inspections.clientId, clientId)))
+    .limit(1);
+  if (!row) return null;
+  const pics = await tx.select({ id: photos.id }).from(photos).where(eq(photos.inspectionId, row.id)).orderBy(photos.createdAt);
+  return { ...row, photoIds: pics.map((p) => p.id) };
+}
+
 export async function insertInspection(values: typeof inspections.$inferInsert, tx: DbOrTx = db): Promise<Inspection> {
   const [row] = await tx.insert(inspections).values(values).returning();
   return row!;
@@ -79,7 +101,7 @@ export async function attachInspectionPhotos(
 
 /** Status change caused by an inspection (out of service on a fail, back to submitted on a pass). */
 export async function setMemberStatusForInspection({ memberId, status }: { memberId: string; status: MemberStatus }, tx: DbOrTx) {
-  await tx.update(members).set({ status, updatedAt: new Date() }).where(eq(members.id, memberId));
+  await tx.update(members).set({ status, updatedAt: new Date(), version: sql`${members.version} + 1` }).where(eq(members.id, memberId));
 }
 
 /** A member's inspections, newest first, with who did them and their photos. */

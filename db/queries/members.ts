@@ -26,6 +26,8 @@ const memberColumns = {
   installedBy: members.installedBy,
   installedAt: members.installedAt,
   createdBy: members.createdBy,
+  clientId: members.clientId,
+  version: members.version,
   createdAt: members.createdAt,
   updatedAt: members.updatedAt,
 };
@@ -98,10 +100,20 @@ export async function insertMember(values: NewMember, tx: DbOrTx = db): Promise<
 export async function updateMemberRow({ memberId, values }: { memberId: string; values: Partial<NewMember> }, tx: DbOrTx = db): Promise<Member> {
   const [row] = await tx
     .update(members)
-    .set({ ...values, updatedAt: new Date() })
+    .set({ ...values, updatedAt: new Date(), version: sql`${members.version} + 1` })
     .where(eq(members.id, memberId))
     .returning(memberColumns);
   return row as Member;
+}
+
+/** The member a phone already created with this clientId on this site (a retried create), if any. */
+export async function getMemberIdByClientId({ siteId, clientId }: { siteId: string; clientId: string }, tx: DbOrTx = db) {
+  const [row] = await tx
+    .select({ id: members.id })
+    .from(members)
+    .where(and(eq(members.siteId, siteId), eq(members.clientId, clientId)))
+    .limit(1);
+  return row?.id ?? null;
 }
 
 /** Every member of a type, with what its check needs from its site (for re-checking after a type edit). */
@@ -132,7 +144,7 @@ export async function setLatestChecks(
     );
     await tx.execute(sql`
       update ${members} as m set
-        latest_check_id = v.check_id, capacity_n = v.capacity_n, utilisation = v.utilisation, check_pass = v.pass, updated_at = now()
+        latest_check_id = v.check_id, capacity_n = v.capacity_n, utilisation = v.utilisation, check_pass = v.pass, updated_at = now(), version = m.version + 1
       from (values ${values}) as v(member_id, check_id, capacity_n, utilisation, pass)
       where m.id = v.member_id`);
   }

@@ -276,7 +276,7 @@ export async function expireIssuedPermit({ permitId, now }: { permitId: string; 
  */
 export async function unloadMembersOfExpiredPermit({ permitId, now }: { permitId: string; now: Date }, tx: DbOrTx) {
   const rows = (await tx.execute(sql`
-    update members m set status = 'submitted', updated_at = ${now.toISOString()}::timestamptz
+    update members m set status = 'submitted', updated_at = ${now.toISOString()}::timestamptz, version = m.version + 1
     from permit_members pm
     where pm.permit_id = ${permitId}::uuid and pm.member_id = m.id and pm.removed_at is null and m.status = 'loaded'
       and not exists (
@@ -430,7 +430,7 @@ export async function setMembersStatus(
   if (memberIds.length === 0) return [] as { id: string; tag: string }[];
   return tx
     .update(members)
-    .set({ status: to, updatedAt: new Date() })
+    .set({ status: to, updatedAt: new Date(), version: sql`${members.version} + 1` })
     .where(and(inArray(members.id, memberIds), inArray(members.status, from)))
     .returning({ id: members.id, tag: members.tag });
 }

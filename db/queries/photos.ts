@@ -10,6 +10,28 @@ export async function insertPhoto(values: NewPhoto, tx: DbOrTx = db): Promise<Ph
   return row!;
 }
 
+/**
+ * Records a pending photo once per (site, clientId): a retried start (even at the same moment)
+ * gets the photo recorded first. `created` says whether this call made it.
+ */
+export async function insertPhotoOnce(values: NewPhoto & { clientId: string }, tx: DbOrTx = db): Promise<{ photo: Photo; created: boolean }> {
+  const [row] = await tx.insert(photos).values(values).onConflictDoNothing({ target: [photos.siteId, photos.clientId] }).returning();
+  if (row) return { photo: row, created: true };
+  const [first] = await tx.select().from(photos).where(and(eq(photos.siteId, values.siteId), eq(photos.clientId, values.clientId))).limit(1);
+  return { photo: first!, created: false };
+}
+
+/** Marks a pending photo ready; null when another request finished (or refused) it first. */
+export async function finishPendingPhoto({ photoId, values }: { photoId: string; values: Partial<NewPhoto> }, tx: DbOrTx = db): Promise<Photo | null> {
+  const [row] = await tx.update(photos).set(values).where(and(eq(photos.id, photoId), eq(photos.status, "pending"))).returning();
+  return row ?? null;
+}
+
+export async function getPhoto({ photoId }: { photoId: string }, tx: DbOrTx = db): Promise<Photo | null> {
+  const [row] = await tx.select().from(photos).where(eq(photos.id, photoId)).limit(1);
+  return row ?? null;
+}
+
 /** A photo only when its site belongs to the user's organisation; site access is checked by the caller. */
 export async function getPhotoForUser({ photoId, organisationId }: { photoId: string; organisationId: string }, tx: DbOrTx = db): Promise<Photo | null> {
   const [row] = await tx

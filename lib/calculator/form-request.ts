@@ -18,7 +18,7 @@ export type UnitLabels = {
 
 export function unitLabels(units: "si" | "us"): UnitLabels {
   return units === "us"
-    ? { length: "ft-in", dim: "in", force: "kip", stress: "ksi", timberStress: "psi", area: "in²", inertia: "in⁴", pressure: "psf", concrete: "psi", lineLoad: "lb/ft" }
+    ? { length: "ft-in", dim: "in", force: "kip", stress: "ksi", timberStress: "ksi", area: "in²", inertia: "in⁴", pressure: "psf", concrete: "ksi", lineLoad: "lb/ft" }
     : { length: "mm", dim: "mm", force: "kN", stress: "MPa", timberStress: "MPa", area: "mm²", inertia: "mm⁴", pressure: "kPa", concrete: "MPa", lineLoad: "N/m" };
 }
 
@@ -36,13 +36,14 @@ export function formToRequest(f: CalculatorForm): Built {
   const dim = (s: string) => (us ? toMm(numberOf(s), "in") : numberOf(s));
   const force = (s: string) => (us ? toN(numberOf(s), "kip") : toN(numberOf(s), "kN"));
   const steelStress = (s: string) => (us ? toMpa(numberOf(s), "ksi") : numberOf(s));
-  const timberStress = (s: string) => (us ? toMpa(numberOf(s), "psi") : numberOf(s));
+  // One unit family under US: every stress and modulus is in ksi, timber and concrete included.
+  const timberStress = (s: string) => (us ? toMpa(numberOf(s), "ksi") : numberOf(s));
   const set = (key: string, text: string, convert: (s: string) => number) => {
     if (text.trim() !== "") r[key] = convert(text);
   };
 
   const pressure = (s: string) => (us ? toKnPerM2(numberOf(s), "psf") : numberOf(s));
-  const concrete = (s: string) => (us ? toMpa(numberOf(s), "psi") : numberOf(s));
+  const concrete = (s: string) => (us ? toMpa(numberOf(s), "ksi") : numberOf(s));
   // lb/ft → N/m: 1 lbf per 304.8 mm
   const lineLoad = (s: string) => (us ? (toN(numberOf(s), "lbf") * 1000) / 304.8 : numberOf(s));
   const plumbProp = f.method === "out-of-plumb" && f.plumbTarget === "prop";

@@ -1,6 +1,6 @@
 // Browser-side calls to /api/v1 with the error shape the API always returns.
 import "@/lib/validations/messages";
-export type ApiError = { status: number; code: string; message: string; fields: Record<string, string>; offline?: boolean };
+export type ApiError = { status: number; code: string; message: string; fields: Record<string, string>; offline?: boolean; current?: unknown };
 export type ApiResult<T> = { ok: true; status: number; data: T } | { ok: false; error: ApiError };
 
 export async function apiJson<T>(path: string, init: { method?: string; body?: unknown } = {}): Promise<ApiResult<T>> {
@@ -26,7 +26,7 @@ export async function apiJson<T>(path: string, init: { method?: string; body?: u
     /* not JSON */
   }
   if (res.ok) return { ok: true, status: res.status, data: body as T };
-  const err = (body as { error?: { code?: string; message?: string; fields?: Record<string, string> } } | null)?.error;
+  const err = (body as { error?: { code?: string; message?: string; fields?: Record<string, string>; current?: unknown } } | null)?.error;
   return {
     ok: false,
     error: {
@@ -34,6 +34,8 @@ export async function apiJson<T>(path: string, init: { method?: string; body?: u
       code: err?.code ?? "error",
       message: err?.message ?? (res.status === 401 ? "Your session has ended; sign in again (your entries are kept)." : `The server answered ${res.status}; try again.`),
       fields: err?.fields ?? {},
+      // An edit conflict carries the record as the server has it now.
+      ...(err?.current !== undefined ? { current: err.current } : {}),
     },
   };
 }

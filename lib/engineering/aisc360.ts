@@ -84,7 +84,7 @@ export function aiscDesignSection(req: CalculationRequest): { req: CalculationRe
       step("Nominal wall thickness", "t_nom", s.tMm, "mm", "User input"),
       saw
         ? step("Design wall thickness t_des = 1.0·t_nom (submerged-arc welded HSS)", "t_des", tDes, "mm", "AISC 360-16 §B4.2")
-        : step("Design wall thickness t_des = 0.93·t_nom (electric-resistance welded HSS; say hssWeld: saw for submerged-arc welded)", "t_des", tDes, "mm", "AISC 360-16 §B4.2"),
+        : step("Design wall thickness t_des = 0.93·t_nom (electric-resistance welded HSS; choose submerged-arc welded tube for the full wall)", "t_des", tDes, "mm", "AISC 360-16 §B4.2"),
     ],
   };
 }
@@ -124,7 +124,7 @@ export function runAisc360(req: CalculationRequest, designBasis: "lrfd" | "asd")
     warnings.push(`Lc/r = ${fmt(lambda)} is over 200, the preferred limit in the AISC 360-16 §E2 user note for compression members.`);
   }
   if (design.steps.length && req.hssWeld === undefined) {
-    warnings.push("The tube was taken as electric-resistance welded, so its design wall is 0.93 × the nominal thickness (AISC 360-16 §B4.2); say it is submerged-arc welded (hssWeld: saw) to use the full wall.");
+    warnings.push("The tube was taken as electric-resistance welded, so its design wall is 0.93 × the nominal thickness (AISC 360-16 §B4.2); choose submerged-arc welded tube welding to use the full wall.");
   }
   if (props.kind === "given") {
     warnings.push("Slender elements (AISC 360-16 Table B4.1a) cannot be checked from an area and I alone; this check assumes the section has none.");

@@ -60,7 +60,7 @@ export function runBaseBearing(req: CalculationRequest): MethodOutcome {
     if (req.solePlateTMm === undefined) errors.push(fieldError("solePlateTMm", "Give the sole plate's thickness in mm (or leave out all sole plate sizes)."));
   }
   if (!onSlab && req.allowablePressureKPa === undefined && req.soil === undefined) {
-    errors.push(fieldError("allowablePressureKPa", "Give the allowable bearing pressure in kPa, or choose the ground type (soil), or give the slab below for a back-prop."));
+    errors.push(fieldError("allowablePressureKPa", "Give the allowable bearing pressure in kPa, or choose the ground type, or give the slab below for a back-prop."));
   }
   if (onSlab && req.fckMpa === undefined) errors.push(fieldError("fckMpa", "Give the strength of the slab's concrete (f_ck, or f'c for ACI 318) in MPa."));
   if (errors.length || req.loadN === undefined || req.basePlateBMm === undefined || req.basePlateLMm === undefined) return { ok: false, errors };
@@ -134,7 +134,7 @@ export function runBaseBearing(req: CalculationRequest): MethodOutcome {
       d = h - 40;
       if (!(d > 0)) return { ok: false, errors: [fieldError("slabDepthMm", `A slab ${fmt(h)} mm deep leaves no effective depth after 40 mm cover and bar allowance.`)] };
       steps.push(step("Slab depth", "h", h, "mm", "User input"), step("Effective depth d = h − 40 mm (cover and half a bar, common practice)", "d", d, "mm", "Common practice"));
-      warnings.push(`The slab's effective depth was taken as ${fmt(d)} mm (depth − 40 mm); give slabEffectiveDepthMm from the slab drawings.`);
+      warnings.push(`The slab's effective depth was taken as ${fmt(d)} mm (depth − 40 mm); give the slab effective depth d from the slab drawings.`);
     }
     // A back-prop loads the slab from above or below through its (spread) base: the loaded area is the bearing area.
     if (code === "en1992") {

@@ -174,7 +174,7 @@ export function combinedSteel(req: CalculationRequest, input: CombinedInput, lab
   }, Math.min(pc, pe1 / alpha));
   warnings.push(...eff.warnings);
   if (req.hssWeld === undefined && design.steps.length) {
-    warnings.push("The tube was taken as electric-resistance welded, so its design wall is 0.93 × the nominal thickness (AISC 360-16 §B4.2); say it is submerged-arc welded (hssWeld: saw) to use the full wall.");
+    warnings.push("The tube was taken as electric-resistance welded, so its design wall is 0.93 × the nominal thickness (AISC 360-16 §B4.2); choose submerged-arc welded tube welding to use the full wall.");
   }
   steps.push(
     ...slender.steps,

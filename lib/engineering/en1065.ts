@@ -108,7 +108,7 @@ export function runEn1065(req: CalculationRequest): MethodOutcome {
     "EN 1065 class values assume the prop stands plumb, is loaded centrally through its end plates and is in good condition; a prop out of plumb, bent or with a substitute pin needs its own assessment.",
   ];
   if (!minGiven) {
-    warnings.push("The prop's minimum (closed) extension was not given, so it is not checked that the prop can be set this short; give minExtensionMm from the prop's marking.");
+    warnings.push("The prop's minimum (closed) extension was not given, so it is not checked that the prop can be set this short; give the prop's minimum extension from its marking.");
   }
   if (req.k !== undefined || req.ends !== undefined) {
     warnings.push("End conditions and k are not used: the EN 1065 class strength already assumes the prop's own end plates.");

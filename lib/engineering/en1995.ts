@@ -50,7 +50,7 @@ export function runEn1995(req: CalculationRequest): MethodOutcome {
     errors.push(
       fieldError(
         "strengthClass",
-        `Strength class "${req.strengthClass}" is not in the list (${TIMBER_CLASSES.map((c) => c.id).join(", ")}); give fc0kMpa and e005Mpa instead.`,
+        `Strength class "${req.strengthClass}" is not in the list (${TIMBER_CLASSES.map((c) => c.id).join(", ")}); give the compression strength f_c,0,k and the modulus E0,05 instead.`,
       ),
     );
   }
@@ -83,7 +83,7 @@ export function runEn1995(req: CalculationRequest): MethodOutcome {
   const warnings = [...eff.warnings];
   if (req.kmod === undefined && (req.serviceClass === undefined || req.loadDuration === undefined)) {
     warnings.push(
-      `kmod = ${fmt(kmod)} for service class ${serviceClass}, ${duration} load (EN 1995-1-1 Table 3.1) was assumed${req.serviceClass === undefined && req.loadDuration === undefined ? "; medium-term covers propping left in place from a week to six months (Table 2.1) and service class 3 covers timber exposed to the weather, as props, rakers and trench timbers are" : ""}. Give kmod, serviceClass or loadDuration if your case differs (service class 2 for work under cover, EN 1995-1-1 §2.3.1.3).`,
+      `kmod = ${fmt(kmod)} for service class ${serviceClass}, ${duration} load (EN 1995-1-1 Table 3.1) was assumed${req.serviceClass === undefined && req.loadDuration === undefined ? "; medium-term covers propping left in place from a week to six months (Table 2.1) and service class 3 covers timber exposed to the weather, as props, rakers and trench timbers are" : ""}. Give kmod, the service class or the load duration class if your case differs (service class 2 for work under cover, EN 1995-1-1 §2.3.1.3).`,
     );
   }
   if (lambdaRel <= 0.3) {

@@ -36,7 +36,7 @@ export function runEuler(req: CalculationRequest): MethodOutcome {
     ...eff.warnings,
     "This is the theoretical elastic buckling load of a perfectly straight member: it has no safety margin and ignores crookedness, eccentric load and yielding. Do not use it as a safe load.",
   ];
-  if (req.eMpa === undefined) warnings.push("E = 210 000 MPa (steel) was assumed; give eMpa for other materials.");
+  if (req.eMpa === undefined) warnings.push("E = 210 000 MPa (steel) was assumed; give the modulus of elasticity E for other materials.");
   return {
     ok: true,
     value: {

@@ -95,7 +95,7 @@ export function runNds(req: CalculationRequest): MethodOutcome {
     );
   }
   if (req.c === undefined && req.timberType === undefined) {
-    warnings.push(`c = ${fmt(c)} for ${TYPE_WORDS[timberType]} was assumed; give timberType or c if the member is glulam, SCL or a pole.`);
+    warnings.push(`c = ${fmt(c)} for ${TYPE_WORDS[timberType]} was assumed; give the timber type or the column parameter c if the member is glulam, SCL or a pole.`);
   }
   steps.push(
     ...eff.steps,

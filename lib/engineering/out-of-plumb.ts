@@ -25,7 +25,7 @@ const PLUMB_SOURCE = "Common practice (UK temporary works guidance: props plumb 
 function tiltOf(req: CalculationRequest): { ok: true; thetaRad: number; offsetMm: number; steps: Step[] } | { ok: false; errors: FieldError[] } {
   const L = req.lengthMm;
   if (req.outOfPlumbDeg !== undefined && req.outOfPlumbMm !== undefined) {
-    return { ok: false, errors: [fieldError("outOfPlumbMm", "Give the lean either as an angle (outOfPlumbDeg) or as an offset (outOfPlumbMm), not both.")] };
+    return { ok: false, errors: [fieldError("outOfPlumbMm", "Give the lean either as an angle or as an offset of the head over the base, not both.")] };
   }
   if (req.outOfPlumbMm !== undefined) {
     if (req.outOfPlumbMm >= L) {
@@ -60,10 +60,10 @@ export function runOutOfPlumb(req: CalculationRequest): MethodOutcome {
   const errors: FieldError[] = [];
   if (req.loadN === undefined) errors.push(fieldError("loadN", "Give the vertical load on the member in N: the effect of leaning grows with the load."));
   if (req.outOfPlumbDeg === undefined && req.outOfPlumbMm === undefined && req.eccentricityMm === undefined) {
-    errors.push(fieldError("outOfPlumbDeg", "Give how far the member is out of plumb (outOfPlumbDeg or outOfPlumbMm), or the load's eccentricity (eccentricityMm)."));
+    errors.push(fieldError("outOfPlumbDeg", "Give how far the member is out of plumb (an angle or an offset), or the load's eccentricity at the ends."));
   }
   if (req.propClass === undefined && req.section === undefined) {
-    errors.push(fieldError("section", "Give the member's section and steel (section, fyMpa or steelGrade), or the prop's EN 1065 class (propClass) for a prop."));
+    errors.push(fieldError("section", "Give the member's section and steel (the section, and the yield strength fy or a steel grade), or the prop's EN 1065 class for a prop."));
   }
   if (errors.length || req.loadN === undefined) return { ok: false, errors };
   const tilt = tiltOf(req);

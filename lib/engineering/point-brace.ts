@@ -84,7 +84,7 @@ export function runPointBrace(req: CalculationRequest): MethodOutcome {
     };
   }
   const pcr = eulerLoad(e, props.iMinMm4, lb);
-  if (req.eMpa === undefined) warnings.push("E = 200 000 MPa (steel, AISC 360-16) was assumed; give eMpa for other materials.");
+  if (req.eMpa === undefined) warnings.push("E = 200 000 MPa (steel, AISC 360-16) was assumed; give the modulus of elasticity E for other materials.");
   if (pr > pcr) {
     warnings.push(
       `The load ${fmt(pr)} N is more than the critical load between braces (${fmt(pcr)} N): even rigid braces cannot stop the member buckling between them.`,

@@ -39,7 +39,7 @@ export function runRakingCombined(req: CalculationRequest): MethodOutcome {
   if (!combined.ok) return combined;
   const warnings = [...combined.warnings];
   if (req.selfWeightNPerM === undefined) {
-    warnings.push(`The raker's self-weight was taken from its nominal steel area at ${STEEL_UNIT_WEIGHT_KN_M3} kN/m³ (${fmt(w)} N/m); give selfWeightNPerM for a different material or added fittings.`);
+    warnings.push(`The raker's self-weight was taken from its nominal steel area at ${STEEL_UNIT_WEIGHT_KN_M3} kN/m³ (${fmt(w)} N/m); give the self-weight for a different material or added fittings.`);
   }
   if (req.angleDeg < 45 || req.angleDeg > 75) warnings.push(`A raker at ${fmt(req.angleDeg)}° is outside the usual 45°–75° range (common practice).`);
   const steps: Step[] = [

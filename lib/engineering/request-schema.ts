@@ -167,7 +167,7 @@ const FLAT_SCHEMA = z.object({
   eMpa: N.eMpa.optional(),
   fyMpa: N.fyMpa.optional(),
   steelGrade: textSchema("Steel grade").optional(),
-  formed: enumSchema(["hot-finished", "cold-formed"], "Manufacturing route (formed)").optional(),
+  formed: enumSchema(["hot-finished", "cold-formed"], "How the section was made").optional(),
   curve: enumSchema(["a0", "a", "b", "c", "d"], "Buckling curve").optional(),
   gammaM1: N.gammaM1.optional(),
   fc0kMpa: N.fc0kMpa.optional(),
@@ -193,9 +193,9 @@ const FLAT_SCHEMA = z.object({
   braces: N.braces.optional(),
   designBasis: enumSchema(["lrfd", "asd"], "Design basis").optional(),
   loadN: N.loadN.optional(),
-  fyFrom: enumSchema(["product-standard", "en1993-table-3.1"], "Source of the yield strength (fyFrom)").optional(),
-  hssWeld: enumSchema(["erw", "saw"], "Tube welding (hssWeld)").optional(),
-  duringConstruction: bool("During construction (duringConstruction)").optional(),
+  fyFrom: enumSchema(["product-standard", "en1993-table-3.1"], "Source of the yield strength").optional(),
+  hssWeld: enumSchema(["erw", "saw"], "Tube welding").optional(),
+  duringConstruction: bool("During construction").optional(),
   supplierInterpolation: enumSchema(["inverse-square", "lower-row"], "Supplier table interpolation").optional(),
   outOfPlumbDeg: N.outOfPlumbDeg.optional(),
   outOfPlumbMm: N.outOfPlumbMm.optional(),
@@ -276,7 +276,7 @@ export function parseTable(raw: unknown, path = "table"): { ok: true; value: Tab
   if (!Array.isArray(raw)) {
     return {
       ok: false,
-      errors: [{ field: path, message: `The supplier table must be a list of rows, each with lengthMm and safeLoadN (got ${describeValue(raw)}).` }],
+      errors: [{ field: path, message: `The supplier table must be a list of rows, each with a length and a safe load (got ${describeValue(raw)}).` }],
     };
   }
   if (raw.length > 500) {

@@ -6,7 +6,7 @@ import "server-only";
 import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import {
-  attachInspectionPhotos, findPhotosForInspection, getLatestInspection, insertInspection, lockMemberForInspection,
+  attachInspectionPhotos, findPhotosForInspection, getInspectionByClientId, getLatestInspection, insertInspection, lockMemberForInspection,
   setMemberStatusForInspection,
 } from "@/db/queries/inspections";
 import { removeMemberFromIssuedPermits } from "@/db/queries/permits";
@@ -22,6 +22,11 @@ import type { InspectionInput } from "@/lib/validations/inspection";
 import { checkLabel } from "./checklist";
 import { nextDueFrom } from "./due";
 
+/**
+ * With a `clientId` this member already has an inspection for (a request retried after a lost
+ * answer, or sent twice at once): the inspection recorded the first time, `replayed: true`, and
+ * nothing new. The member row lock serialises twins, so the second always sees the first.
+ */
 export async function recordInspection(args: { user: SessionUser; member: { id: string }; input: InspectionInput; now?: Date }) {
   const { user, input, now = new Date() } = args;
   const memberId = args.member.id;
@@ -31,6 +36,18 @@ export async function recordInspection(args: { user: SessionUser; member: { id: 
     if (!member) throw new NotFoundError("That member");
     if (member.status === "struck")
       throw new ConflictError("This member has been struck (removed); there is nothing to inspect. Log it again if it is back in use.");
+    if (input.clientId) {
+      const first = await getInspectionByClientId({ memberId, clientId: input.clientId }, tx);
+      if (first) {
+        const { inspectorName, ...rest } = first;
+        return {
+          replayed: true as const,
+          inspection: { ...rest, inspectorName: inspectorName ?? user.name },
+          member: { id: memberId, tag: member.tag, status: member.status },
+          removedFromPermits: [] as { id: string; label: string }[],
+        };
+      }
+    }
 
     const photoIds = input.photoIds ?? [];
     if (photoIds.length) {
@@ -53,6 +70,7 @@ export async function recordInspection(args: { user: SessionUser; member: { id: 
         notes: input.notes || null,
         inspectedAt: now,
         nextDueAt: input.result === "pass" ? nextDueFrom(now, member.inspectionIntervalDays) : null,
+        clientId: input.clientId ?? null,
       },
       tx,
     );
@@ -155,6 +173,7 @@ export async function recordInspection(args: { user: SessionUser; member: { id: 
     }
 
     return {
+      replayed: false as const,
       inspection: {
         id: inspection.id,
         memberId,

@@ -4,7 +4,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
-import { insertPhoto, updatePhoto } from "@/db/queries/photos";
+import { finishPendingPhoto, getPhoto, insertPhoto, insertPhotoOnce, updatePhoto } from "@/db/queries/photos";
 import type { SessionUser } from "@/db/queries/users";
 import type { Photo } from "@/db/schema";
 import { ValidationError } from "@/lib/errors";
@@ -53,10 +53,10 @@ export async function photoView(p: Pick<Photo, "id" | "status" | "memberId" | "c
  * The caller (a route on the seam in lib/api/route.ts) has already found the site and checked the role.
  */
 export async function presignPhoto(args: { user: SessionUser; site: { id: string }; memberId?: string | null; input: PhotoPresignInput }) {
-  const { contentType, size } = args.input;
+  const { contentType, size, clientId } = args.input;
   const photoId = randomUUID();
   const objectKey = `sites/${args.site.id}/photos/${photoId}/original`;
-  await insertPhoto({
+  const values = {
     id: photoId,
     siteId: args.site.id,
     memberId: args.memberId ?? null,
@@ -64,10 +64,21 @@ export async function presignPhoto(args: { user: SessionUser; site: { id: string
     objectKey,
     declaredContentType: contentType,
     sizeBytes: size,
-    status: "pending",
-  });
-  const uploadUrl = await presignPut(objectKey, contentType);
-  return { photoId, uploadUrl, method: "PUT" as const, headers: { "content-type": contentType }, maxBytes: MAX_PHOTO_BYTES };
+    status: "pending" as const,
+  };
+  // With a clientId, a start retried after a lost answer gets the photo recorded first (and a fresh URL).
+  const { photo, created } = clientId ? await insertPhotoOnce({ ...values, clientId }) : { photo: await insertPhoto(values), created: true };
+  const type = photo.declaredContentType ?? contentType;
+  const uploadUrl = await presignPut(photo.objectKey, type);
+  return {
+    photoId: photo.id,
+    uploadUrl,
+    method: "PUT" as const,
+    headers: { "content-type": type },
+    maxBytes: MAX_PHOTO_BYTES,
+    status: photo.status,
+    replayed: !created,
+  };
 }
 
 async function reject(photo: Photo, reason: string): Promise<never> {
@@ -103,7 +114,8 @@ export async function completePhoto(args: { user: SessionUser; photo: Photo }): 
     putObject(thumbnailKey, p.thumbnail, "image/jpeg"),
   ]);
   const updated = await transaction(async (tx) => {
-    const row = await updatePhoto({
+    // Only a still-pending photo is finished here: a completion sent twice at once records one photo and one audit row.
+    const row = await finishPendingPhoto({
     photoId,
     values: {
       status: "ready",
@@ -117,6 +129,7 @@ export async function completePhoto(args: { user: SessionUser; photo: Photo }): 
       sizeBytes: head.size,
     },
   }, tx);
+    if (!row) return null;
     // A photo added to an existing member is a change to that member's record.
     if (row.memberId) {
       await recordAudit(
@@ -126,5 +139,8 @@ export async function completePhoto(args: { user: SessionUser; photo: Photo }): 
     }
     return row;
   });
-  return photoView(updated);
+  if (updated) return photoView(updated);
+  const now = (await getPhoto({ photoId }))!;
+  if (now.status === "rejected") throw new ValidationError({ photo: now.rejectReason ?? "This photo was refused." }, now.rejectReason ?? "This photo was refused.");
+  return photoView(now);
 }

@@ -5,10 +5,10 @@ import "server-only";
 // `db` only for updateMember's transaction (the member helper's area; see eslint.config.mjs's temporary exemption).
 import { transaction, type DbOrTx, type Tx } from "@/db";
 import { recordAudit, recordAudits } from "@/db/queries/audit";
-import { insertCheck, insertChecks } from "@/db/queries/checks";
+import { getCheck, insertCheck, insertChecks } from "@/db/queries/checks";
 import { getMemberType } from "@/db/queries/member-types";
 import {
-  getMemberForUpdate, getMemberIdByTag, getMemberView, insertMember, listMembersOfTypeForCheck,
+  getMemberForUpdate, getMemberIdByClientId, getMemberIdByTag, getMemberView, insertMember, listMembersOfTypeForCheck,
   setLatestChecks, updateMemberRow, type MemberView,
 } from "@/db/queries/members";
 import { attachPhotos, getPhotosByIds } from "@/db/queries/photos";
@@ -219,6 +219,7 @@ export async function createMember(args: {
           installedBy: user.id,
           installedAt: new Date(),
           createdBy: user.id,
+          clientId: input.clientId ?? null,
         },
         tx,
       );
@@ -246,6 +247,37 @@ export async function createMember(args: {
     return { member: view!, check: checkView(check) };
   };
   return args.tx ? work(args.tx) : transaction(work);
+}
+
+/** The answer a create gave the first time, rebuilt from what was stored. */
+async function storedCreate(memberId: string): Promise<{ member: MemberView; check: CheckView | null }> {
+  const member = (await getMemberView({ memberId }))!;
+  const check = member.latestCheckId ? await getCheck({ checkId: member.latestCheckId }) : null;
+  return { member, check: check ? checkView(check) : null };
+}
+
+/**
+ * Logs a member once per `clientId`: a create retried after a lost response (or sent twice at the
+ * same moment) gets the member made the first time, with `replayed: true`, and nothing new is stored.
+ * Concurrent twins race on the unique (site, client_id) index; the loser reads the winner's row back.
+ */
+export async function createMemberOnce(args: { user: SessionUser; site: SiteForCheck; input: MemberCreate; source?: "form" | "api" }) {
+  const { site, input } = args;
+  const clientId = input.clientId;
+  if (clientId) {
+    const existing = await getMemberIdByClientId({ siteId: site.id, clientId });
+    if (existing) return { replayed: true as const, ...(await storedCreate(existing)) };
+  }
+  try {
+    return { replayed: false as const, ...(await createMember(args)) };
+  } catch (e) {
+    // The twin committed first: its tag (or its clientId) is now taken by the very member we meant to make.
+    if (clientId && (isUniqueViolation(e) || (e instanceof ValidationError && e.fields?.tag))) {
+      const existing = await getMemberIdByClientId({ siteId: site.id, clientId });
+      if (existing) return { replayed: true as const, ...(await storedCreate(existing)) };
+    }
+    throw e;
+  }
 }
 
 /** Unknown keys in a patch are named one by one rather than as one anonymous error. */
@@ -279,6 +311,12 @@ export async function updateMember(args: {
 
   return transaction(async (tx) => {
     const before = (await getMemberForUpdate({ memberId }, tx))!;
+    if (patch.baseVersion !== undefined && patch.baseVersion !== before.version) {
+      throw new ConflictError(
+        `${before.tag} was changed by someone else since this edit was started (version ${patch.baseVersion}; it is now at version ${before.version}). Nothing was saved: compare the two and choose what to keep.`,
+        { baseVersion: `The member is now at version ${before.version}.` },
+      );
+    }
     if (patch.status !== undefined && patch.status !== before.status) {
       const conflict = statusEditConflict({
         tag: before.tag,

@@ -2,6 +2,7 @@
 // the same input again. A coordinator's "inspect now" trigger has its own small schema.
 import { z } from "zod";
 import { inspectionResult } from "@/db/schema";
+import { clientIdSchema } from "./member";
 
 export const MAX_INSPECTION_PHOTOS = 20;
 
@@ -27,6 +28,7 @@ export const inspectionSchema = z
       .array(z.string().uuid("Each photo id must be the id of an uploaded photo."), { error: () => "photoIds must be a list of photo ids." })
       .max(MAX_INSPECTION_PHOTOS, `At most ${MAX_INSPECTION_PHOTOS} photos per inspection.`)
       .optional(),
+    clientId: clientIdSchema.optional(),
   })
   .superRefine((v, ctx) => {
     const items = v.items ?? [];

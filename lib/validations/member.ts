@@ -8,6 +8,11 @@ export const MAX_PHOTOS_PER_MEMBER = 20;
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
 export const TAG_PATTERN = /^[A-Za-z0-9][A-Za-z0-9\-_./ ]*$/;
 
+/** A UUID the phone makes for a create, so a retried request returns the first record instead of a second. */
+export const clientIdSchema = z
+  .string({ error: () => "clientId must be a UUID made on the device for this record." })
+  .uuid("clientId must be a UUID made on the device for this record (e.g. crypto.randomUUID()).");
+
 const uuid = (what: string) => z.string({ error: () => `Choose ${what}.` }).uuid(`Choose ${what} from the list.`);
 
 const positive = (label: string, unit: string, max: number) =>
@@ -67,6 +72,7 @@ export const memberCreateSchema = z
       .optional(),
     /** Ask for the member to be submitted at once (allowed only when its check passes). */
     submit: z.boolean({ error: () => "submit must be true or false." }).optional(),
+    clientId: clientIdSchema.optional(),
   })
   .superRefine(loadRules);
 
@@ -90,6 +96,11 @@ export const memberPatchSchema = z
     spacingYMm: base.spacingYMm,
     notes: base.notes,
     status: z.enum(memberStatus.enumValues, { error: () => `Status must be one of: ${EDITABLE_STATUSES.join(", ")}.` }),
+    /** The member's `version` the edit was made against; a newer one on the server is a 409 conflict. */
+    baseVersion: z
+      .number({ error: () => "baseVersion must be the member's version number the edit was based on." })
+      .int("baseVersion must be a whole number.")
+      .positive("baseVersion must be 1 or more."),
   })
   .partial()
   .strict();
@@ -111,5 +122,6 @@ export const photoPresignSchema = z.object({
     .int("The size must be a whole number of bytes.")
     .positive("The photo is empty (0 bytes).")
     .max(MAX_PHOTO_BYTES, "The photo is larger than 15 MB; take it again at a lower resolution."),
+  clientId: clientIdSchema.optional(),
 });
 export type PhotoPresignInput = z.output<typeof photoPresignSchema>;

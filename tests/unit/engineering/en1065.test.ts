@@ -76,7 +76,7 @@ describe("en1065 method", () => {
     }
     // No minimum given: none is assumed (EN 1065 props are marked with their own range); the result asks for it.
     const notGiven = ok(calculate({ method: "en1065", lengthMm: 1700, propClass: "B", maxExtensionMm: 3500 }));
-    expect(notGiven.warnings.join(" ")).toContain("minExtensionMm");
+    expect(notGiven.warnings.join(" ")).toContain("minimum extension from its marking");
     expect(notGiven.steps.find((s) => s.symbol === "l_min")?.value).toBe("not given");
     const minTooLong = calculate({ method: "en1065", lengthMm: 3000, propClass: "B", maxExtensionMm: 3500, minExtensionMm: 3500 });
     expect(!minTooLong.ok && minTooLong.errors[0].field).toBe("minExtensionMm");

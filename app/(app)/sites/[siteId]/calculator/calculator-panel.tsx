@@ -3,6 +3,10 @@
 import { Icon } from "@/components/icons";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useEffect, useMemo, useRef, useState } from "react";
+import { useLocalDraft } from "@/components/use-local-draft";
+import { apiJson } from "@/lib/client/api";
+import { typeToForm, type LibraryType } from "@/lib/calculator/from-type";
+import { plausibilityWarnings, speakUnits, switchUnits, type UnitSwitchMemory } from "@/lib/calculator/units-speech";
 import { useForm, type UseFormRegister } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
@@ -13,14 +17,14 @@ import { CALCULATOR_DEFAULTS, calculatorFormSchema, type CalculatorForm } from "
 import { CapacityChart } from "@/components/capacity-chart";
 import { ResultView } from "./result-view";
 
-type Props = { defaultUnits: "si" | "us"; defaultDesignCode: "en1993" | "aisc360-lrfd" | "aisc360-asd" };
+type Props = { siteId: string; defaultUnits: "si" | "us"; defaultDesignCode: "en1993" | "aisc360-lrfd" | "aisc360-asd" };
 
 const SECTION_METHODS: MethodId[] = ["euler", "en1993", "aisc360-lrfd", "aisc360-asd", "en1995", "nds", "point-brace", "out-of-plumb", "raking-combined"];
 const STEEL_METHODS: MethodId[] = ["en1993", "aisc360-lrfd", "aisc360-asd", "out-of-plumb", "raking-combined"];
 const ALL_METHODS = [...METHODS, ...CHECK_METHODS];
 const CURVE_METHODS: string[] = METHODS.map((m) => m.id);
 
-export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
+export function CalculatorPanel({ siteId, defaultUnits, defaultDesignCode }: Props) {
   const [outcome, setOutcome] = useState<{ result: CalculationResult; request: Record<string, unknown>; units: "si" | "us" } | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
   const resultRef = useRef<HTMLDivElement>(null);
@@ -32,7 +36,59 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
     resolver: zodResolver(calculatorFormSchema),
     defaultValues: { ...CALCULATOR_DEFAULTS, units: defaultUnits, method: "en1065", designBasis: defaultDesignCode === "aisc360-asd" ? "asd" : "lrfd" },
   });
-  const { register, handleSubmit, watch, setError, formState } = form;
+  const { register, handleSubmit, watch, setError, formState, getValues, reset } = form;
+  // What was typed stays on this device, so a reload (or a dropped signal) keeps the inputs.
+  const draft = useLocalDraft<CalculatorForm>(
+    `strutwise:calculator:${siteId}`,
+    (d) => reset(d),
+    (raw) => {
+      if (!raw || typeof raw !== "object") return null;
+      const merged = { ...CALCULATOR_DEFAULTS, ...(raw as Partial<CalculatorForm>) };
+      // A draft from an older form (unknown method, a non-text value) is ignored rather than half-restored.
+      const sound = ALL_METHODS.some((m) => m.id === merged.method) && (merged.units === "si" || merged.units === "us") && Object.values(merged).every((v) => typeof v === "string");
+      return sound ? merged : null;
+    },
+  );
+  const { ready: draftReady, save: saveDraft } = draft;
+  useEffect(() => {
+    if (!draftReady) return;
+    const sub = watch((v) => saveDraft(v as CalculatorForm));
+    return () => sub.unsubscribe();
+  }, [draftReady, watch, saveDraft]);
+  const unitMemory = useRef<UnitSwitchMemory | null>(null);
+  // Changing the units re-expresses every typed value (4000 mm becomes 157.48 in), never re-reads it.
+  const changeUnits = (to: "si" | "us") => {
+    const current = getValues();
+    if (current.units === to) return;
+    const next = switchUnits(current, to, unitMemory.current);
+    unitMemory.current = next.memory;
+    reset(next.values, { keepDefaultValues: true });
+    setOutcome(null);
+    setFormError(null);
+  };
+  const plausible = plausibilityWarnings(watch());
+  const [library, setLibrary] = useState<LibraryType[] | null>(null);
+  const [fromType, setFromType] = useState<string | null>(null);
+  useEffect(() => {
+    let live = true;
+    void apiJson<{ items: LibraryType[] }>(`/api/v1/sites/${siteId}/member-types`).then((r) => {
+      if (live) setLibrary(r.ok ? r.data.items.filter((t) => typeToForm(t, CALCULATOR_DEFAULTS, defaultDesignCode) !== null) : []);
+    });
+    return () => {
+      live = false;
+    };
+  }, [siteId, defaultDesignCode]);
+  const startFromType = (id: string) => {
+    const type = library?.find((t) => t.id === id);
+    if (!type) return;
+    const values = typeToForm(type, getValues(), defaultDesignCode);
+    if (!values) return;
+    unitMemory.current = null;
+    reset(values, { keepDefaultValues: true });
+    setFromType(type.name);
+    setOutcome(null);
+    setFormError(null);
+  };
   const errors = formState.errors;
   const method = watch("method");
   const units = watch("units");
@@ -60,12 +116,15 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
       const general: string[] = [];
       for (const e of result.errors) {
         const f = fieldForPath(e.field);
-        if (f) setError(f, { message: e.message });
-        else general.push(e.message);
+        const message = speakUnits(e.message, values.units);
+        if (f) setError(f, { message });
+        else general.push(message);
       }
       setFormError(general.length ? general.join(" ") : "Some values need attention; see the fields marked below.");
     }
-    setOutcome({ result, request, units: values.units });
+    // Warnings are written in SI by the engine; say them in the form's units.
+    const spoken = result.ok ? { ...result, warnings: result.warnings.map((w) => speakUnits(w, values.units)) } : result;
+    setOutcome({ result: spoken, request, units: values.units });
   });
 
   const curve = useMemo(() => {
@@ -93,6 +152,18 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,24rem)_1fr]">
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4 rounded-xl border-2 border-ink/15 bg-paper-raised p-4" aria-label="Calculation inputs">
+        {library && library.length ? (
+          <Field id="fromType" label="Start from a library type (optional)" hint={fromType ? `Inputs filled from the library type “${fromType}”; change any value before calculating.` : "Fills the method and the type's section, material or range."}>
+            <select id="fromType" className={inputClass} value="" onChange={(e) => startFromType(e.target.value)}>
+              <option value="">— choose a type —</option>
+              {library.map((t) => (
+                <option key={t.id} value={t.id}>
+                  {t.name}
+                </option>
+              ))}
+            </select>
+          </Field>
+        ) : null}
         <Field id="method" label="Method" hint={info.description}>
           <select id="method" className={inputClass} {...register("method")}>
             <optgroup label="Member capacity">
@@ -115,7 +186,7 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
           <legend className="mb-1 text-sm font-semibold">Units</legend>
           {(["si", "us"] as const).map((v) => (
             <label key={v} className="flex min-h-touch flex-1 cursor-pointer items-center justify-center gap-2 rounded-lg border-2 border-ink/30 px-3 has-[:checked]:border-brand has-[:checked]:bg-brand-soft">
-              <input type="radio" value={v} {...register("units")} />
+              <input type="radio" name="units" value={v} checked={units === v} onChange={() => changeUnits(v)} />
               {v === "si" ? "SI (mm, kN, MPa)" : "US (in, kip, ksi)"}
             </label>
           ))}
@@ -134,6 +205,7 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
             label={method === "en1065" || method === "supplier-table" || plumbProp ? `Extension (${u.length})` : method === "raking-combined" ? `Raker length head to foot (${u.length})` : `Length between restraints (${u.length})`}
             reg={register}
             error={errors.length?.message}
+            warn={plausible.length}
             hint={units === "us" ? `e.g. 9' 6" or 114 in` : "e.g. 2850 or 2.85 m"}
           />
         ) : null}
@@ -197,7 +269,7 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
                 ))}
               </select>
             </Field>
-            <Text id="fy" label={`Yield strength fy (${u.stress})`} reg={register} error={errors.fy?.message} />
+            <Text id="fy" label={`Yield strength fy (${u.stress})`} reg={register} error={errors.fy?.message} warn={plausible.fy} />
             {(method.startsWith("aisc") || (STEEL_METHODS.includes(method) && checkCode === "aisc360")) && (shape === "chs" || shape === "rhs") ? (
               <Field id="hssWeld" label="Tube welding" hint="AISC 360-16 §B4.2: design wall 0.93t for ERW, 1.0t for submerged-arc welded.">
                 <select id="hssWeld" className={inputClass} {...register("hssWeld")}>
@@ -293,7 +365,7 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
           </>
         ) : null}
         {["euler", "en1993", "aisc360-lrfd", "aisc360-asd", "point-brace"].includes(method) ? (
-          <Text id="e" label={`Modulus E (${u.stress}, optional)`} reg={register} error={errors.e?.message} />
+          <Text id="e" label={`Modulus E (${u.stress}, optional)`} reg={register} error={errors.e?.message} warn={plausible.e} />
         ) : null}
 
         {method === "en1995" ? (
@@ -308,14 +380,16 @@ export function CalculatorPanel({ defaultUnits, defaultDesignCode }: Props) {
                 ))}
               </select>
             </Field>
+            <Text id="fc0k" label={`Compression strength f_c,0,k (${u.timberStress}, optional: overrides the class)`} reg={register} error={errors.fc0k?.message} warn={plausible.fc0k} />
+            <Text id="e005" label={`Modulus E0,05 (${u.timberStress}, optional: overrides the class)`} reg={register} error={errors.e005?.message} warn={plausible.e005} />
             <Text id="kmod" label="kmod (optional)" reg={register} error={errors.kmod?.message} />
             <Text id="gammaM" label="γM (optional)" reg={register} error={errors.gammaM?.message} />
           </>
         ) : null}
         {method === "nds" ? (
           <>
-            <Text id="fcStar" label={`Fc* adjusted (${u.timberStress})`} reg={register} error={errors.fcStar?.message} />
-            <Text id="eMin" label={`Emin' adjusted (${u.timberStress})`} reg={register} error={errors.eMin?.message} />
+            <Text id="fcStar" label={`Fc* adjusted (${u.timberStress})`} reg={register} error={errors.fcStar?.message} warn={plausible.fcStar} />
+            <Text id="eMin" label={`Emin' adjusted (${u.timberStress})`} reg={register} error={errors.eMin?.message} warn={plausible.eMin} />
             <Field id="timberType" label="Timber type">
               <select id="timberType" className={inputClass} {...register("timberType")}>
                 <option value="">Sawn (c = 0.8)</option>
@@ -417,9 +491,10 @@ function loadHint(basis: string) {
 }
 
 function Text({
-  id, label, reg, error, hint,
-}: { id: keyof CalculatorForm; label: string; reg: UseFormRegister<CalculatorForm>; error?: string; hint?: string }) {
+  id, label, reg, error, hint, warn,
+}: { id: keyof CalculatorForm; label: string; reg: UseFormRegister<CalculatorForm>; error?: string; hint?: string; warn?: string }) {
   return (
+    <div className="flex flex-col gap-1">
     <Field id={id} label={label} error={error} hint={hint}>
       <input
         id={id}
@@ -431,5 +506,12 @@ function Text({
         {...reg(id)}
       />
     </Field>
+    {warn && !error ? (
+      <p id={`${id}-warning`} role="status" className="flex items-start gap-1 rounded-lg border-2 border-warn bg-warn-soft p-2 text-sm">
+        <Icon name="warn" className="h-4 w-4 shrink-0 text-warn" />
+        {warn}
+      </p>
+    ) : null}
+    </div>
   );
 }

@@ -17,7 +17,7 @@ export default async function CalculatorPage({ params }: { params: Promise<{ sit
         </p>
       </div>
       <CautionNotice />
-      <CalculatorPanel defaultUnits={site.unitSystem} defaultDesignCode={site.designCode} />
+      <CalculatorPanel siteId={site.id} defaultUnits={site.unitSystem} defaultDesignCode={site.designCode} />
     </div>
   );
 }

@@ -2,6 +2,7 @@ import { Icon } from "@/components/icons";
 import type { CalculationSuccess } from "@/lib/engineering";
 import { formatUtilisation } from "@/lib/client/format";
 import { fromN } from "@/lib/units";
+import { stepInUnits } from "@/lib/calculator/units-speech";
 
 const BASIS_WORDS: Record<string, string> = {
   "elastic-critical": "Elastic critical load (no safety margin)",
@@ -69,16 +70,20 @@ export function ResultView({ result, units }: { result: CalculationSuccess; unit
               </tr>
             </thead>
             <tbody>
-              {result.checks.map((c) => (
+              {result.checks.map((c) => {
+                const demand = stepInUnits(c.demand, c.unit, units);
+                const resistance = stepInUnits(c.resistance, c.unit, units);
+                return (
                 <tr key={c.name} className="border-t border-ink/10 align-top">
                   <td className="p-2">{c.name}</td>
-                  <td className="tabular p-2 text-right">{fmtValue(c.demand)}</td>
-                  <td className="tabular p-2 text-right">{fmtValue(c.resistance)}</td>
-                  <td className="p-2">{c.unit}</td>
+                  <td className="tabular p-2 text-right">{fmtValue(demand.value)}</td>
+                  <td className="tabular p-2 text-right">{fmtValue(resistance.value)}</td>
+                  <td className="p-2">{demand.unit}</td>
                   <td className={`tabular p-2 text-right font-bold ${c.utilisation > 1 ? "text-bad" : ""}`}>{(c.utilisation * 100).toFixed(0)} %</td>
                   <td className="p-2 text-ink-soft">{c.source}</td>
                 </tr>
-              ))}
+                );
+              })}
             </tbody>
           </table>
         </div>
@@ -148,19 +153,22 @@ export function ResultView({ result, units }: { result: CalculationSuccess; unit
             </tr>
           </thead>
           <tbody>
-            {result.steps.map((s, i) => (
+            {result.steps.map((s, i) => {
+              const shown = stepInUnits(s.value, s.unit, units);
+              return (
               <tr key={i} className="border-t border-ink/10 align-top">
                 <td className="p-2">{s.label}</td>
                 <td className="p-2 font-mono">{s.symbol}</td>
-                <td className="tabular p-2 text-right">{fmtValue(s.value)}</td>
-                <td className="p-2">{s.unit}</td>
+                <td className="tabular p-2 text-right">{fmtValue(shown.value)}</td>
+                <td className="p-2">{shown.unit}</td>
                 <td className="p-2 text-ink-soft">{s.source}</td>
               </tr>
-            ))}
+              );
+            })}
           </tbody>
         </table>
       </div>
-      <p className="text-xs text-ink-soft">Engine {result.engineVersion}. Steps are in SI units (N, mm, MPa).</p>
+      <p className="text-xs text-ink-soft">Engine {result.engineVersion}. {units === "us" ? "Working shown in in, kip and ksi; the engine computes in N, mm and MPa." : "Working in N, mm and MPa."}</p>
     </section>
   );
 }

@@ -25,6 +25,8 @@ export function MemberEditForm({
   member: {
     tag: string; zoneId: string | null; schemeId: string | null; memberTypeId: string; extensionMm: number; endConditions: string;
     loadSource: "direct" | "slab"; loadN: number; spacingXMm: number | null; spacingYMm: number | null; notes: string | null; status: string;
+    /** The version this form was loaded with: a newer one on the server is refused (409), not overwritten. */
+    version: number;
   };
   zones: ZoneOption[];
   schemes: SchemeOption[];
@@ -78,7 +80,12 @@ export function MemberEditForm({
       setMessage({ ok: true, text: "Nothing changed." });
       return;
     }
-    const r = await apiJson<{ member: { loadN: number }; check: CheckSummary | null }>(`/api/v1/members/${memberId}`, { method: "PATCH", body: patch });
+    const r = await apiJson<{ member: { loadN: number }; check: CheckSummary | null }>(`/api/v1/members/${memberId}`, { method: "PATCH", body: { ...patch, baseVersion: member.version } });
+    if (!r.ok && r.error.status === 409 && r.error.fields.baseVersion) {
+      // Keep what was typed; the page behind it shows the member as it is now after a refresh.
+      setMessage({ ok: false, text: `${r.error.message} Your changes are still in this form: note what you want to keep, then reload to see the member as it is now.` });
+      return;
+    }
     if (!r.ok) {
       placeErrors(r.error);
       setMessage({ ok: false, text: Object.keys(r.error.fields).length ? "Some values need attention; nothing was changed." : r.error.message });

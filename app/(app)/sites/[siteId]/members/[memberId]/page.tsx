@@ -235,7 +235,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
             member={{
               tag: member.tag, zoneId: member.zoneId, schemeId: member.schemeId, memberTypeId: member.memberTypeId, extensionMm: member.extensionMm,
               endConditions: member.endConditions, loadSource: member.loadSource, loadN: member.loadN, spacingXMm: member.spacingXMm, spacingYMm: member.spacingYMm,
-              notes: member.notes, status: member.status,
+              notes: member.notes, status: member.status, version: member.version,
             }}
             {...editProps}
           />

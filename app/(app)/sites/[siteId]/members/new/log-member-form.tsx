@@ -7,11 +7,11 @@ import { useForm, type Resolver } from "react-hook-form";
 import { Icon } from "@/components/icons";
 import { useLocalDraft } from "@/components/use-local-draft";
 import { useServerErrors } from "@/components/use-server-errors";
-import { apiJson } from "@/lib/client/api";
+import { newClientId, submitOrQueue } from "@/lib/client/outbox/submit";
 import { CheckResult, type CheckSummary } from "@/components/register/check-result";
 import { MemberFields, type SchemeOption, type TypeOption, type ZoneOption } from "@/components/register/member-fields";
 import { EMPTY_MEMBER_FORM, FIELD_OF, toMemberInput, type MemberFormValues, type UnitSystem } from "@/components/register/member-form-values";
-import { PhotoUploader, type UploadedPhoto } from "@/components/register/photo-uploader";
+import { PhotoUploader, type QueuedFile, type UploadedPhoto } from "@/components/register/photo-uploader";
 import { Button, buttonClass } from "@/components/ui/button";
 import { memberCreateSchema } from "@/lib/validations/member";
 
@@ -55,6 +55,8 @@ export function LogMemberForm({
   const [restored, setRestored] = useState<string | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState<Saved | null>(null);
+  const [queued, setQueued] = useState<string | null>(null);
+  const queuedPhotos = useRef<QueuedFile[]>([]);
   const [uploaderKey, setUploaderKey] = useState(0);
   const photosRef = useRef(photos);
   photosRef.current = photos;
@@ -84,7 +86,8 @@ export function LogMemberForm({
   }, [watch, saveDraft, loaded]);
 
   const onPhotos = useCallback(
-    (ready: UploadedPhoto[], busy: boolean) => {
+    (ready: UploadedPhoto[], busy: boolean, waiting: QueuedFile[]) => {
+      queuedPhotos.current = waiting;
       setPhotos(ready);
       photosRef.current = ready;
       setUploading(busy);
@@ -105,10 +108,24 @@ export function LogMemberForm({
     setFormError(null);
     saveDraft();
     const { input } = toMemberInput(values, unitSystem);
-    const r = await apiJson<Saved>(`/api/v1/sites/${siteId}/members`, {
-      body: { ...input, photoIds: photos.map((p) => p.photoId), submit: values.submit },
+    // With no signal (or a request lost on a weak one) the entry waits in the outbox and is sent once.
+    const r = await submitOrQueue<Saved>({
+      kind: "member",
+      siteId,
+      label: `Member ${values.tag.trim()}`,
+      path: `/api/v1/sites/${siteId}/members`,
+      presignPath: `/api/v1/sites/${siteId}/photos`,
+      body: { ...input, submit: values.submit, clientId: newClientId() },
+      photoIds: photos.map((p) => p.photoId),
+      photos: queuedPhotos.current,
     });
-    if (!r.ok) {
+    if (!r.sent && r.queued) {
+      draft.clear();
+      setRestored(null);
+      setQueued(values.tag.trim());
+      return;
+    }
+    if (!r.sent) {
       const { placed, unplaced } = placeErrors(r.error);
       const first = placed[0] as keyof MemberFormValues | undefined;
       setFormError(unplaced.length ? unplaced.join(" ") : "Some values need attention; see the fields marked below. Nothing was saved yet.");
@@ -118,6 +135,7 @@ export function LogMemberForm({
     draft.clear();
     setRestored(null);
     setSaved(r.data);
+    setQueued(null);
     requestAnimationFrame(() => resultRef.current?.focus());
   });
 
@@ -125,9 +143,25 @@ export function LogMemberForm({
     const keep = getValues();
     reset({ ...EMPTY_MEMBER_FORM, zoneId: keep.zoneId, schemeId: keep.schemeId, memberTypeId: keep.memberTypeId, endConditions: keep.endConditions, loadSource: keep.loadSource, spacingX: keep.spacingX, spacingY: keep.spacingY });
     setPhotos([]);
+    queuedPhotos.current = [];
     setUploaderKey((k) => k + 1);
     setSaved(null);
+    setQueued(null);
     requestAnimationFrame(() => setFocus("tag"));
+  }
+
+  if (queued !== null) {
+    return (
+      <div className="flex flex-col gap-4">
+        <h2 className="text-xl font-bold" role="status">
+          {queued} saved on this phone — waiting to send
+        </h2>
+        <p>No signal just now. It is kept on this phone (also through a reload or a flat battery) and sent once when the connection returns; the server then checks it and stores the result.</p>
+        <Button type="button" variant="secondary" className="w-full" onClick={logAnother}>
+          <Icon name="add" /> Log another member
+        </Button>
+      </div>
+    );
   }
 
   if (saved) {

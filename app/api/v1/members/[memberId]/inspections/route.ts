@@ -10,7 +10,11 @@ export const GET = siteRoute({ resource: "member", permission: "viewSite" }, asy
   return { member: { id: member.id, tag: member.tag, status: member.status }, items };
 });
 
-/** Records an inspection; a failed one takes the member out of service and out of its permits. */
-export const POST = siteRoute({ resource: "member", permission: "inspect", body: inspectionSchema }, async ({ user, resource: member, input }) =>
-  created(await recordInspection({ user, member, input })),
-);
+/**
+ * Records an inspection (201); a failed one takes the member out of service and out of its permits.
+ * With a `clientId` this member already has an inspection for: 200 with that inspection, nothing new.
+ */
+export const POST = siteRoute({ resource: "member", permission: "inspect", body: inspectionSchema }, async ({ user, resource: member, input }) => {
+  const { replayed, ...body } = await recordInspection({ user, member, input });
+  return replayed ? body : created(body);
+});

@@ -11,5 +11,8 @@ export const POST = siteRoute(
     forbidden: "Your role on this site does not allow adding photos to members.",
     body: photoPresignSchema,
   },
-  async ({ user, site, resource: member, input }) => created(await presignPhoto({ user, site, memberId: member.id, input })),
+  async ({ user, site, resource: member, input }) => {
+    const { replayed, ...body } = await presignPhoto({ user, site, memberId: member.id, input });
+    return replayed ? body : created(body);
+  },
 );

@@ -4,14 +4,14 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useEffect, useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Icon } from "@/components/icons";
 import { useLocalDraft } from "@/components/use-local-draft";
 import { useServerErrors } from "@/components/use-server-errors";
-import { apiJson } from "@/lib/client/api";
-import { PhotoUploader, type UploadedPhoto } from "@/components/register/photo-uploader";
+import { newClientId, submitOrQueue } from "@/lib/client/outbox/submit";
+import { PhotoUploader, type QueuedFile, type UploadedPhoto } from "@/components/register/photo-uploader";
 import { Button, ButtonLink } from "@/components/ui/button";
 import { describedBy } from "@/components/ui/field";
 import { INSPECTION_CHECKS } from "@/lib/inspections/checklist";
@@ -30,7 +30,7 @@ const emptyValues = (): FormIn => ({
   photoIds: [],
 });
 
-type Saved = { result: "pass" | "fail"; memberStatus: string; removedFromPermits: { label: string }[]; nextDueAt: string | null };
+type Saved = { result: "pass" | "fail"; memberStatus: string; removedFromPermits: { label: string }[]; nextDueAt: string | null; queued?: boolean };
 
 export function InspectForm({
   siteId, memberId, tag, plumbToleranceMm, intervalDays,
@@ -43,6 +43,7 @@ export function InspectForm({
   const [uploaderKey, setUploaderKey] = useState(0);
   const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState<Saved | null>(null);
+  const queuedPhotos = useRef<QueuedFile[]>([]);
   const {
     register, handleSubmit, watch, reset, setValue, setError, formState: { errors, isSubmitting },
   } = useForm<FormIn, unknown, InspectionInput>({ resolver: zodResolver(inspectionSchema), defaultValues: emptyValues() });
@@ -71,11 +72,23 @@ export function InspectForm({
 
   async function onSubmit(input: InspectionInput) {
     setFormError(null);
-    const r = await apiJson<{ inspection: { nextDueAt: string | null }; member: { status: string }; removedFromPermits: { label: string }[] }>(
-      `/api/v1/members/${memberId}/inspections`,
-      { body: { ...input, photoIds: photos.map((p) => p.photoId) } },
-    );
-    if (!r.ok) {
+    // With no signal (or a request lost on a weak one) the inspection waits in the outbox and is sent once.
+    const r = await submitOrQueue<{ inspection: { nextDueAt: string | null }; member: { status: string }; removedFromPermits: { label: string }[] }>({
+      kind: "inspection",
+      siteId,
+      label: `Inspection of ${tag} (${input.result === "pass" ? "pass" : "fail"})`,
+      path: `/api/v1/members/${memberId}/inspections`,
+      presignPath: `/api/v1/members/${memberId}/photos`,
+      body: { ...input, clientId: newClientId() },
+      photoIds: photos.map((p) => p.photoId),
+      photos: queuedPhotos.current,
+    });
+    if (!r.sent && r.queued) {
+      draft.clear();
+      setSaved({ result: input.result, memberStatus: "", removedFromPermits: [], nextDueAt: null, queued: true });
+      return;
+    }
+    if (!r.sent) {
       const { unplaced } = placeErrors(r.error);
       if (unplaced.length) setFormError(unplaced.join(" "));
       return;
@@ -83,6 +96,16 @@ export function InspectForm({
     draft.clear();
     setSaved({ result: input.result, memberStatus: r.data.member.status, removedFromPermits: r.data.removedFromPermits, nextDueAt: r.data.inspection.nextDueAt });
     router.refresh();
+  }
+
+  if (saved?.queued) {
+    return (
+      <section role="status" aria-live="polite" className="flex flex-col gap-3 rounded-xl border-2 border-warn bg-warn-soft p-4">
+        <p className="text-lg font-bold">Inspection of {tag} saved on this phone — waiting to send</p>
+        <p>No signal just now. It is kept on this phone and sent once when the connection returns; the member&apos;s status changes when the server has it.</p>
+        <ButtonLink href={`/sites/${siteId}/inspections`}>Back to the inspection round</ButtonLink>
+      </section>
+    );
   }
 
   if (saved) {
@@ -185,7 +208,8 @@ export function InspectForm({
         presignPath={`/api/v1/members/${memberId}/photos`}
         initial={photos}
         label="Photos of the member (optional)"
-        onChange={(ready, busy) => {
+        onChange={(ready, busy, waiting) => {
+          queuedPhotos.current = waiting;
           setPhotos(ready);
           setPhotosBusy(busy);
         }}

@@ -1,0 +1,52 @@
+// Issue #16: messages reach a person, so they are sentences with labels and never name a request
+// key (eMpa, timberType, serviceClass…); the keys stay as the error's field path.
+import { describe, expect, it } from "vitest";
+import { calculate } from "@/lib/engineering";
+import { ALL_METHOD_IDS } from "@/lib/engineering/types";
+
+const KEYS = [
+  "lengthMm", "eMpa", "fyMpa", "steelGrade", "gammaM1", "fc0kMpa", "e005Mpa", "serviceClass", "loadDuration", "strengthClass",
+  "timberType", "fcStarMpa", "eMinMpa", "propClass", "maxExtensionMm", "minExtensionMm", "designBasis", "loadN", "fyFrom", "hssWeld",
+  "duringConstruction", "supplierInterpolation", "outOfPlumbDeg", "outOfPlumbMm", "eccentricityMm", "plumbCode", "basePlateBMm",
+  "allowablePressureKPa", "slabDepthMm", "slabEffectiveDepthMm", "fckMpa", "punchingCode", "shoredLevels", "slabSelfWeightKPa",
+  "angleDeg", "selfWeightNPerM", "safeLoadN", "dMm", "tMm", "areaMm2", "iMinMm4",
+];
+const CODE_WORD = new RegExp(`\\b(${KEYS.join("|")})\\b|\\([a-z]+[A-Z]\\w*\\)`);
+
+function messagesOf(request: Record<string, unknown>): string[] {
+  const r = calculate(request);
+  return r.ok ? r.warnings : r.errors.map((e) => e.message);
+}
+
+describe("engine messages name no request key", () => {
+  const requests: Record<string, unknown>[] = [];
+  for (const method of ALL_METHOD_IDS) {
+    requests.push({ method, lengthMm: 2500 });
+    requests.push({ method, lengthMm: 2500, section: { shape: "chs", dMm: 48.3, tMm: 3.2 }, loadN: 1000 });
+    requests.push({ method, lengthMm: 2500, section: { shape: "chs", dMm: 48.3, tMm: 3.2 }, steelGrade: "S355", loadN: 1000, outOfPlumbDeg: 2, angleDeg: 60 });
+    requests.push({ method, lengthMm: 2500, section: { shape: "rect", bMm: 100, hMm: 100 }, strengthClass: "C24", fcStarMpa: 8, eMinMpa: 4000, loadN: 1000 });
+    requests.push({
+      method, lengthMm: -1, eMpa: -1, fyMpa: "x", serviceClass: 7, timberType: "oak", hssWeld: "tig", formed: "bent", fyFrom: 3, duringConstruction: "yes",
+      loadN: -5, table: [{ lengthMm: 1 }], section: { shape: "chs" }, outOfPlumbDeg: 1, outOfPlumbMm: 5, propClass: "Z",
+    });
+    requests.push({ method, lengthMm: 2500, propClass: "D", maxExtensionMm: 3350, basePlateBMm: 150, basePlateLMm: 150, slabDepthMm: 200, fckMpa: 30, loadN: 1000 });
+  }
+  const all = requests.flatMap(messagesOf);
+
+  it("covers a broad spread of refusals and warnings", () => {
+    expect(all.length).toBeGreaterThan(60);
+  });
+
+  it.each(ALL_METHOD_IDS)("%s: every message and warning is in words", (method) => {
+    const msgs = requests.filter((r) => r.method === method).flatMap(messagesOf);
+    const offenders = msgs.filter((m) => CODE_WORD.test(m));
+    expect(offenders).toEqual([]);
+  });
+
+  it("a bad modulus is refused with its label and unit", () => {
+    const r = calculate({ method: "euler", lengthMm: 2500, section: { shape: "chs", dMm: 48.3, tMm: 3.2 }, eMpa: -5 });
+    expect(r.ok).toBe(false);
+    const e = r.ok ? undefined : r.errors.find((x) => x.field === "eMpa");
+    expect(e?.message).toMatch(/^Modulus of elasticity E must be greater than zero \(got -5 MPa\)/);
+  });
+});
