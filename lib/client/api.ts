@@ -3,7 +3,8 @@ import "@/lib/validations/messages";
 export type ApiError = { status: number; code: string; message: string; fields: Record<string, string>; offline?: boolean; current?: unknown };
 export type ApiResult<T> = { ok: true; status: number; data: T } | { ok: false; error: ApiError };
 
-export async function apiJson<T>(path: string, init: { method?: string; body?: unknown } = {}): Promise<ApiResult<T>> {
+/** `timeoutMs`: give up on a request that hangs (a weak signal); it then answers as offline. */
+export async function apiJson<T>(path: string, init: { method?: string; body?: unknown; timeoutMs?: number } = {}): Promise<ApiResult<T>> {
   let res: Response;
   try {
     res = await fetch(path, {
@@ -11,6 +12,7 @@ export async function apiJson<T>(path: string, init: { method?: string; body?: u
       headers: init.body === undefined ? undefined : { "content-type": "application/json" },
       body: init.body === undefined ? undefined : JSON.stringify(init.body),
       credentials: "same-origin",
+      ...(init.timeoutMs ? { signal: AbortSignal.timeout(init.timeoutMs) } : {}),
     });
   } catch {
     return {

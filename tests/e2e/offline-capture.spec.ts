@@ -106,6 +106,29 @@ test("a round with no signal: three members, two photos and an inspection arrive
   await page.getByRole("button", { name: "Record inspection" }).click();
   await expect(page.getByText(/saved on this phone — waiting to send/)).toBeVisible();
 
+  // A send cut short by the page going away leaves its item marked "sending" in IndexedDB;
+  // the reload must show it waiting again, not stuck half-sent.
+  await page.evaluate(
+    () =>
+      new Promise<void>((resolve, reject) => {
+        const open = indexedDB.open("strutwise-outbox");
+        open.onerror = () => reject(open.error);
+        open.onsuccess = () => {
+          const tx = open.result.transaction("items", "readwrite");
+          const all = tx.objectStore("items").getAll();
+          all.onsuccess = () => {
+            const oldest = (all.result as { queuedAt: string }[]).sort((a, b) => a.queuedAt.localeCompare(b.queuedAt))[0];
+            if (oldest) tx.objectStore("items").put({ ...oldest, status: "sending", step: "Sending photos", progress: 0.5 });
+          };
+          tx.oncomplete = () => {
+            open.result.close();
+            resolve();
+          };
+          tx.onerror = () => reject(tx.error);
+        };
+      }),
+  );
+
   // A reload (or a flat battery) loses nothing: four entries wait, with their photos.
   await page.reload();
   await expect(page.getByTestId("outbox-count")).toHaveText("4");
