@@ -93,3 +93,9 @@ export async function listZonePlanMembers({ siteId, zoneId }: { siteId: string; 
     .where(and(eq(members.siteId, siteId), eq(members.zoneId, zoneId)))
     .orderBy(asc(members.tag));
 }
+
+/** Which zones of a site have a plan (for links from the overview, the register and the member page). */
+export async function listZonesWithPlan({ siteId }: { siteId: string }, tx: DbOrTx = db) {
+  const rows = await tx.select({ id: zones.id, name: zones.name, planImageKey: zones.planImageKey }).from(zones).where(eq(zones.siteId, siteId)).orderBy(asc(zones.name));
+  return rows.map((r) => ({ id: r.id, name: r.name, hasPlan: r.planImageKey != null }));
+}
