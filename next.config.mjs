@@ -7,7 +7,7 @@ const nextConfig = {
   reactStrictMode: true,
   typedRoutes: false,
   images: { unoptimized: true },
-  serverExternalPackages: ["pg-boss"],
+  serverExternalPackages: ["pg-boss", "@napi-rs/canvas", "unpdf"],
 };
 
 export default nextConfig;

@@ -32,7 +32,8 @@ export default defineConfig({
     {
       name: "desktop",
       // Phone-only journeys (logging a member from the camera) run in the phone project alone.
-      testIgnore: [/log-member\.spec\.ts/, /offline-capture\.spec\.ts/, /onboarding-empty\.spec\.ts/],
+      // The zone plan journey makes its own phone and desk browsers, so it runs once (in the phone project).
+      testIgnore: [/log-member\.spec\.ts/, /offline-capture\.spec\.ts/, /onboarding-empty\.spec\.ts/, /zone-plan-journey\.spec\.ts/],
       use: { browserName: "chromium", viewport: { width: 1366, height: 850 }, launchOptions: chromium },
     },
     {

@@ -1,7 +1,7 @@
 // The single source of truth for tables, enums and relations.
 import { relations, sql } from "drizzle-orm";
 import {
-  bigserial, boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text,
+  bigserial, boolean, check, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text,
   timestamp, uniqueIndex, uuid,
 } from "drizzle-orm/pg-core";
 
@@ -149,6 +149,8 @@ export const passwordResets = pgTable(
 );
 
 // ------------------------------------------------------ design and library
+export type PlanScale = { x1: number; y1: number; x2: number; y2: number; distanceMm: number };
+
 export const zones = pgTable(
   "zones",
   {
@@ -158,7 +160,18 @@ export const zones = pgTable(
     level: text("level"),
     grid: text("grid"),
     area: text("area"),
+    /** The zone's plan as shown and printed (PNG or JPEG, at most 4000 px a side; a PDF upload is rendered to PNG). */
     planImageKey: text("plan_image_key"),
+    /** The file as uploaded, kept for the record. */
+    planSourceKey: text("plan_source_key"),
+    /** What the upload was, read from its bytes: image/png, image/jpeg, image/webp or application/pdf. */
+    planSourceType: text("plan_source_type"),
+    planWidth: integer("plan_width"),
+    planHeight: integer("plan_height"),
+    /** Two points on the plan (fractions 0–1 of the image) and the real distance between them. */
+    planScale: jsonb("plan_scale").$type<PlanScale>(),
+    planUploadedBy: uuid("plan_uploaded_by").references(() => users.id),
+    planUploadedAt: timestamp("plan_uploaded_at", { withTimezone: true }),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("zones_site_name").on(t.siteId, t.name)],
@@ -238,6 +251,9 @@ export const members = pgTable(
     capacityN: doublePrecision("capacity_n"),
     utilisation: doublePrecision("utilisation"),
     checkPass: boolean("check_pass"),
+    /** Where the member stands on its zone's plan, as fractions 0–1 of the image (both or neither). */
+    planX: doublePrecision("plan_x"),
+    planY: doublePrecision("plan_y"),
     notes: text("notes"),
     installedBy: uuid("installed_by").references(() => users.id),
     installedAt: timestamp("installed_at", { withTimezone: true }),
@@ -262,6 +278,10 @@ export const members = pgTable(
     index("members_site_ext_tag").on(t.siteId, t.extensionMm, t.tag),
     index("members_site_updated_tag").on(t.siteId, t.updatedAt, t.tag),
     index("members_site_util_tag").on(t.siteId, sql`coalesce(${t.utilisation}, 'Infinity'::float8)`, t.tag),
+    check(
+      "members_plan_position",
+      sql`(${t.planX} is null and ${t.planY} is null) or (${t.planX} between 0 and 1 and ${t.planY} between 0 and 1)`,
+    ),
   ],
 );
 

@@ -22,6 +22,8 @@ const memberColumns = {
   capacityN: members.capacityN,
   utilisation: members.utilisation,
   checkPass: members.checkPass,
+  planX: members.planX,
+  planY: members.planY,
   notes: members.notes,
   installedBy: members.installedBy,
   installedAt: members.installedAt,

@@ -11,6 +11,7 @@ import {
 import { seedCertificates } from "./certificates";
 import { seedInspections } from "./inspections";
 import { seedPhotos } from "./photos";
+import { DEMO_OFF_PLAN, seedZonePlans } from "./plans";
 
 const url = process.env.DATABASE_URL ?? "postgres://postgres@127.0.0.1:55432/strutwise";
 const client = postgres(url, { max: 2, onnotice: () => {} });
@@ -182,6 +183,7 @@ export async function seed() {
     await seedInspections(tx, { memberIds, inspectorId: people.engineer!.id, now });
     await seedCertificates(tx, { designerName: people.designer!.name, now });
     await seedPhotos(tx, { uploadedBy: people.engineer!.id, now });
+    await seedZonePlans(tx, { uploadedBy: people.designer!.id, now, leaveOff: DEMO_OFF_PLAN });
 
     async function addPermit(p: {
       site: string; kind: "load" | "strike"; status: (typeof schema.permitStatus.enumValues)[number]; number: number | null;

@@ -39,6 +39,7 @@ const FIELD_LABELS: Record<string, string> = {
   spacingYMm: "As-built spacing Y",
   notes: "Notes",
   status: "Status",
+  planPosition: "Place on the zone plan",
 };
 /** Kept from the record but said through the check sentence, not one by one. */
 const CHECK_KEYS = new Set(["latestCheckId", "capacityN", "utilisation", "checkPass", "check"]);
@@ -79,6 +80,10 @@ function valueText(key: string, v: unknown, ctx: Ctx): string {
     case "notes":
     case "tag":
       return `“${String(v)}”`;
+    case "planPosition": {
+      const p = obj(v);
+      return typeof p.x === "number" && typeof p.y === "number" ? `${Math.round(p.x * 100)} % across, ${Math.round(p.y * 100)} % down` : "none";
+    }
     default:
       return String(v);
   }

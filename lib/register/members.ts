@@ -15,6 +15,7 @@ import { attachPhotos, getPhotosByIds } from "@/db/queries/photos";
 import { getScheme } from "@/db/queries/schemes";
 import type { SessionUser } from "@/db/queries/users";
 import { getZone } from "@/db/queries/zones";
+import { getZonePlan } from "@/db/queries/zone-plans";
 import type { Member, MemberType } from "@/db/schema";
 import { ConflictError, fieldErrorsFromZod, NotFoundError, ValidationError, type FieldErrors } from "@/lib/errors";
 import { getLastInspectionSummary } from "@/db/queries/member-history";
@@ -145,6 +146,19 @@ async function resolveRefs(site: SiteForCheck, v: MemberState, tx: DbOrTx, curre
   return { type: type!, zone, scheme, loadN, slab };
 }
 
+/**
+ * A place on a plan needs the member's zone to have one. Returns the columns to store, or the
+ * field error to report (the position itself is range-checked by the schema).
+ */
+async function planColumns(args: { siteId: string; zoneId: string | null; position: { x: number; y: number } | null }, tx: DbOrTx): Promise<{ planX: number | null; planY: number | null } | string> {
+  const { position } = args;
+  if (!position) return { planX: null, planY: null };
+  if (!args.zoneId) return "Put the member in a zone first: a place on a plan belongs to a zone's plan.";
+  const plan = await getZonePlan({ siteId: args.siteId, zoneId: args.zoneId }, tx);
+  if (!plan?.planImageKey) return `${plan?.name ?? "This zone"} has no plan yet; a designer or coordinator uploads it on the zone's plan page.`;
+  return { planX: position.x, planY: position.y };
+}
+
 function checkRow(outcome: CheckOutcome, slab: SlabLoadInfo | null) {
   return checkSnapshot(outcome, slab ? { slabLoad: slab } : undefined);
 }
@@ -190,7 +204,10 @@ export async function createMember(args: {
         else if (p.status !== "ready") errors.photoIds = p.status === "rejected" ? "One of the photos was refused; remove it and take it again." : "One of the photos has not finished uploading; wait for it or retry it.";
       }
     }
+    const place = await planColumns({ siteId: site.id, zoneId: ref.zone?.id ?? null, position: input.planPosition ?? null }, tx);
+    if (typeof place === "string") errors.planPosition = place;
     if (Object.keys(errors).length) throw new ValidationError(errors);
+    const planPlace = place as { planX: number | null; planY: number | null };
 
     const outcome = runCheck(ref.type, { extensionMm: input.extensionMm, endConditions: input.endConditions, loadN: ref.loadN }, site);
     if (input.submit && !outcome.pass) {
@@ -216,6 +233,7 @@ export async function createMember(args: {
           capacityN: outcome.capacityN,
           utilisation: outcome.utilisation,
           checkPass: outcome.pass,
+          ...planPlace,
           installedBy: user.id,
           installedAt: new Date(),
           createdBy: user.id,
@@ -356,6 +374,17 @@ export async function updateMember(args: {
 
     const touched = CHECK_FIELDS.some((f) => patch[f] !== undefined && patch[f] !== before[f]);
     const ref = await resolveRefs(site, v, tx, before.memberTypeId);
+    // A place belongs to the zone's plan: moving the member to another zone takes it off the plan
+    // unless the same edit places it on the new one.
+    const zoneChanged = (ref.zone?.id ?? null) !== before.zoneId;
+    const position =
+      patch.planPosition !== undefined
+        ? patch.planPosition
+        : zoneChanged || before.planX == null || before.planY == null
+          ? null
+          : { x: before.planX, y: before.planY };
+    const place = await planColumns({ siteId: site.id, zoneId: ref.zone?.id ?? null, position }, tx);
+    if (typeof place === "string") throw new ValidationError({ planPosition: place });
     let check: CheckView | null = null;
     let pass = before.checkPass ?? false;
     const values: Partial<Member> = {
@@ -370,6 +399,7 @@ export async function updateMember(args: {
       spacingXMm: v.spacingXMm ?? null,
       spacingYMm: v.spacingYMm ?? null,
       notes: v.notes ?? null,
+      ...place,
     };
     let outcome: CheckOutcome | null = null;
     if (touched || ref.loadN !== before.loadN) {
@@ -391,7 +421,11 @@ export async function updateMember(args: {
     const after = await updateMemberRow({ memberId, values }, tx);
     const changed = Object.keys(values).filter((k) => JSON.stringify(before[k as keyof Member]) !== JSON.stringify(after[k as keyof Member]));
     if (changed.length) {
-      const pick = (m: Member) => Object.fromEntries(changed.map((k) => [k, m[k as keyof Member]]));
+      // The two plan columns are one fact for the record: where the member stands on the plan.
+      const planMoved = changed.includes("planX") || changed.includes("planY");
+      const keys = changed.filter((k) => k !== "planX" && k !== "planY");
+      const placeOf = (m: Member) => (m.planX == null || m.planY == null ? null : { x: m.planX, y: m.planY });
+      const pick = (m: Member) => ({ ...Object.fromEntries(keys.map((k) => [k, m[k as keyof Member]])), ...(planMoved ? { planPosition: placeOf(m) } : {}) });
       await recordAudit(
         {
           organisationId: site.organisationId,

@@ -2,6 +2,7 @@
 // parses the same input again. Values are SI (mm, N); the form converts ft-in and kN at its edge.
 import { z } from "zod";
 import { endCondition, loadSource, memberStatus } from "@/db/schema";
+import { planPositionSchema } from "./zone-plan";
 
 export const MAX_PHOTOS_PER_MEMBER = 20;
 /** Largest photo accepted (15 MB). */
@@ -73,6 +74,8 @@ export const memberCreateSchema = z
     /** Ask for the member to be submitted at once (allowed only when its check passes). */
     submit: z.boolean({ error: () => "submit must be true or false." }).optional(),
     clientId: clientIdSchema.optional(),
+    /** Where it stands on its zone's plan (fractions 0–1 of the image), or null. */
+    planPosition: planPositionSchema.optional(),
   })
   .superRefine(loadRules);
 
@@ -95,6 +98,7 @@ export const memberPatchSchema = z
     spacingXMm: base.spacingXMm,
     spacingYMm: base.spacingYMm,
     notes: base.notes,
+    planPosition: planPositionSchema,
     status: z.enum(memberStatus.enumValues, { error: () => `Status must be one of: ${EDITABLE_STATUSES.join(", ")}.` }),
     /** The member's `version` the edit was made against; a newer one on the server is a 409 conflict. */
     baseVersion: z

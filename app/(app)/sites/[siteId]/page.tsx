@@ -2,7 +2,9 @@ import { Icon } from "@/components/icons";
 import type { Metadata } from "next";
 import { Suspense } from "react";
 import { CautionNotice } from "@/components/caution-notice";
+import { ZonePlanLinks } from "@/components/plan/zone-plan-links";
 import { getSiteCounts } from "@/db/queries/sites";
+import { listZonesWithPlan } from "@/db/queries/zone-plans";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { MEMBER_STATUS_LABELS, PERMIT_STATUS_LABELS } from "@/lib/labels";
 import { ROLE_LABELS } from "@/lib/permissions";
@@ -58,6 +60,7 @@ async function Counts({ siteId }: { siteId: string }) {
 export default async function SiteOverviewPage({ params }: { params: Promise<{ siteId: string }> }) {
   const { siteId } = await params;
   const { site, roles, user, may } = await loadSitePage(siteId);
+  const zones = await listZonesWithPlan({ siteId: site.id });
   return (
     <div className="flex flex-col gap-4">
       <div>
@@ -78,6 +81,7 @@ export default async function SiteOverviewPage({ params }: { params: Promise<{ s
       <Suspense fallback={<p className="text-ink-soft">Counting members and permits…</p>}>
         <Counts siteId={site.id} />
       </Suspense>
+      <ZonePlanLinks siteId={site.id} zones={zones} />
       <CautionNotice />
     </div>
   );

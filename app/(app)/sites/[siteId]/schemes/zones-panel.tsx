@@ -62,6 +62,9 @@ export function ZonesPanel({ siteId, zones, canEdit }: { siteId: string; zones: 
                   <span className="block font-semibold">{z.name}</span>
                   <span className="text-sm text-ink-soft">{[z.level, z.grid, z.area].filter(Boolean).join(" · ") || "—"} · {z.memberCount} member{z.memberCount === 1 ? "" : "s"}</span>
                 </span>
+                <a href={`/sites/${siteId}/zones/${z.id}/plan`} className="flex min-h-touch items-center gap-1 rounded-lg px-3 font-semibold text-brand underline">
+                  Plan <span className="sr-only">of {z.name}</span>
+                </a>
                 {canEdit ? (
                   <button type="button" className="flex min-h-touch items-center gap-1 rounded-lg px-3 font-semibold text-brand hover:bg-paper-sunk" onClick={() => setEditing(z.id)}>
                     Edit <span className="sr-only">{z.name}</span>

@@ -1,9 +1,10 @@
 "use client";
 // Edits a member (PATCH). A change that affects capacity re-checks it; the new result shows at once.
 import { useRouter } from "next/navigation";
-import { useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { useForm } from "react-hook-form";
 import { Icon } from "@/components/icons";
+import { PlanPlacePicker, type PlanPlace } from "@/components/plan/plan-place-picker";
 import { useServerErrors } from "@/components/use-server-errors";
 import { apiJson } from "@/lib/client/api";
 import { CheckResult, type CheckSummary } from "@/components/register/check-result";
@@ -18,13 +19,15 @@ const editFieldOf = (k: string): string => FIELD_OF[k] ?? k;
 type EditValues = MemberFormValues & { status: string };
 
 export function MemberEditForm({
-  memberId, unitSystem, member, zones, schemes, types,
+  siteId, memberId, unitSystem, member, zones, schemes, types,
 }: {
+  siteId: string;
   memberId: string;
   unitSystem: UnitSystem;
   member: {
     tag: string; zoneId: string | null; schemeId: string | null; memberTypeId: string; extensionMm: number; endConditions: string;
     loadSource: "direct" | "slab"; loadN: number; spacingXMm: number | null; spacingYMm: number | null; notes: string | null; status: string;
+    planX: number | null; planY: number | null;
     /** The version this form was loaded with: a newer one on the server is refused (409), not overwritten. */
     version: number;
   };
@@ -53,6 +56,17 @@ export function MemberEditForm({
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [result, setResult] = useState<{ check: CheckSummary; loadN: number } | null>(null);
   const statusError = formState.errors.status?.message;
+  const initialPlace: PlanPlace = member.planX != null && member.planY != null ? { x: member.planX, y: member.planY } : null;
+  const [place, setPlace] = useState<PlanPlace>(initialPlace);
+  const [placeError, setPlaceError] = useState<string | undefined>();
+  const zoneId = watch("zoneId");
+  const lastZone = useRef(zoneId);
+  // A place belongs to one zone's plan: choosing another zone starts with no place on its plan.
+  useEffect(() => {
+    if (lastZone.current !== zoneId) setPlace(zoneId === initial.zoneId ? initialPlace : null);
+    lastZone.current = zoneId;
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- only a change of zone resets the place
+  }, [zoneId]);
   // Loaded, struck and out of service belong to the lifecycle: an edit cannot leave them
   // (lib/register/member-lifecycle.ts). Draft and submitted may be swapped or taken out of service.
   const editable = ["draft", "submitted"].includes(member.status);
@@ -76,6 +90,8 @@ export function MemberEditForm({
     for (const [k, v] of Object.entries(input)) if (JSON.stringify(v) !== JSON.stringify(before[k])) patch[k] = v;
     if (input.loadSource === "direct" && before.loadN !== undefined && input.loadN !== undefined && Math.abs(Number(input.loadN) - member.loadN) < 0.5) delete patch.loadN;
     if (values.status !== member.status) patch.status = values.status;
+    if (JSON.stringify(place) !== JSON.stringify(values.zoneId === initial.zoneId ? initialPlace : null)) patch.planPosition = place;
+    setPlaceError(undefined);
     if (Object.keys(patch).length === 0) {
       setMessage({ ok: true, text: "Nothing changed." });
       return;
@@ -87,7 +103,9 @@ export function MemberEditForm({
       return;
     }
     if (!r.ok) {
-      placeErrors(r.error);
+      const planField = Object.entries(r.error.fields).find(([k]) => k.startsWith("planPosition"));
+      if (planField) setPlaceError(planField[1]);
+      placeErrors({ ...r.error, fields: Object.fromEntries(Object.entries(r.error.fields).filter(([k]) => !k.startsWith("planPosition"))) });
       setMessage({ ok: false, text: Object.keys(r.error.fields).length ? "Some values need attention; nothing was changed." : r.error.message });
       return;
     }
@@ -99,6 +117,7 @@ export function MemberEditForm({
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label="Edit member">
       <MemberFields register={register as never} errors={formState.errors} watch={watch as never} unitSystem={unitSystem} zones={zones} schemes={schemes} types={types} />
+      <PlanPlacePicker siteId={siteId} zoneId={zoneId} memberId={memberId} value={place} onChange={setPlace} error={placeError} />
       <Field id="status" label="Status" error={statusError} hint={editable ? "Taking a member out of service is always allowed; only a passing inspection returns it to service." : lockedHint}>
         <select id="status" className={inputClass} disabled={!editable} aria-invalid={!!statusError} aria-describedby={describedBy("status", statusError, true)} {...register("status")}>
           {(editable ? (["draft", "submitted", "out_of_service"] as const) : ([member.status] as const)).map((s) => (

@@ -103,6 +103,12 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
           {member.zoneName ? ` · ${member.zoneName}` : ""}
           {member.schemeReference ? ` · ${member.schemeReference}` : ""}
         </p>
+        {member.zoneId ? (
+          <a href={`/sites/${site.id}/zones/${member.zoneId}/plan`} className="inline-flex min-h-touch w-fit items-center gap-2 font-semibold text-brand underline">
+            <Icon name="overview" className="h-5 w-5" />
+            {member.planX != null ? `See ${member.tag} on the plan of ${member.zoneName}` : `Plan of ${member.zoneName} (${member.tag} is not placed on it yet)`}
+          </a>
+        ) : null}
         <a
           href={`/sites/${site.id}/members/${member.id}/inspect`}
           className="inline-flex min-h-touch w-fit items-center gap-2 rounded-lg border-2 border-ink/70 bg-paper-raised px-4 font-semibold hover:bg-paper-sunk"
@@ -230,12 +236,13 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
           <h2 id="edit-h" className="mb-2 text-lg font-bold">Edit this member</h2>
           <p className="mb-3 text-sm text-ink-soft">A change to the extension, load, spacing, end conditions, type or scheme re-checks the member and keeps the old check in its history.</p>
           <MemberEditForm
+            siteId={site.id}
             memberId={member.id}
             unitSystem={site.unitSystem}
             member={{
               tag: member.tag, zoneId: member.zoneId, schemeId: member.schemeId, memberTypeId: member.memberTypeId, extensionMm: member.extensionMm,
               endConditions: member.endConditions, loadSource: member.loadSource, loadN: member.loadN, spacingXMm: member.spacingXMm, spacingYMm: member.spacingYMm,
-              notes: member.notes, status: member.status, version: member.version,
+              notes: member.notes, status: member.status, version: member.version, planX: member.planX, planY: member.planY,
             }}
             {...editProps}
           />

@@ -5,6 +5,7 @@ import Link from "next/link";
 import { useCallback, useEffect, useRef, useState } from "react";
 import { useForm, type Resolver } from "react-hook-form";
 import { Icon } from "@/components/icons";
+import { PlanPlacePicker, type PlanPlace } from "@/components/plan/plan-place-picker";
 import { useLocalDraft } from "@/components/use-local-draft";
 import { useServerErrors } from "@/components/use-server-errors";
 import { newClientId, submitOrQueue } from "@/lib/client/outbox/submit";
@@ -16,7 +17,7 @@ import { Button, buttonClass } from "@/components/ui/button";
 import { memberCreateSchema } from "@/lib/validations/member";
 
 type Saved = { member: { id: string; tag: string; loadN: number; status: string }; check: CheckSummary };
-type Draft = { values: MemberFormValues; photos: UploadedPhoto[]; savedAt: string };
+type Draft = { values: MemberFormValues; photos: UploadedPhoto[]; place?: PlanPlace; savedAt: string };
 
 function draftKey(siteId: string) {
   return `strutwise:log-member:${siteId}`;
@@ -60,6 +61,10 @@ export function LogMemberForm({
   const [uploaderKey, setUploaderKey] = useState(0);
   const photosRef = useRef(photos);
   photosRef.current = photos;
+  const [place, setPlaceState] = useState<PlanPlace>(null);
+  const placeRef = useRef<PlanPlace>(null);
+  const lastZone = useRef<string | undefined>(undefined);
+  const [placeError, setPlaceError] = useState<string | undefined>();
   const resultRef = useRef<HTMLHeadingElement>(null);
 
   // Restore a draft left by a reload, a lost connection or a flat battery.
@@ -68,6 +73,9 @@ export function LogMemberForm({
     (d) => {
       reset({ ...EMPTY_MEMBER_FORM, ...d.values, tag: d.values.tag || prefillTag });
       setPhotos(d.photos ?? []);
+      setPlaceState(d.place ?? null);
+      placeRef.current = d.place ?? null;
+      lastZone.current = d.values.zoneId;
       setRestored(d.savedAt);
     },
     asDraft,
@@ -76,8 +84,23 @@ export function LogMemberForm({
   const placeErrors = useServerErrors(setError, { fieldOf: formFieldOf, isField: isFormField });
 
   const saveDraft = useCallback(() => {
-    storeDraft({ values: getValues(), photos: photosRef.current, savedAt: new Date().toISOString() });
+    storeDraft({ values: getValues(), photos: photosRef.current, place: placeRef.current, savedAt: new Date().toISOString() });
   }, [getValues, storeDraft]);
+
+  const setPlace = useCallback(
+    (p: PlanPlace) => {
+      placeRef.current = p;
+      setPlaceState(p);
+      if (loaded) saveDraft();
+    },
+    [loaded, saveDraft],
+  );
+  // A place belongs to one zone's plan: choosing another zone starts with no place.
+  const zoneId = watch("zoneId");
+  useEffect(() => {
+    if (lastZone.current !== undefined && lastZone.current !== zoneId && placeRef.current) setPlace(null);
+    lastZone.current = zoneId;
+  }, [zoneId, setPlace]);
 
   useEffect(() => {
     if (!loaded) return;
@@ -100,6 +123,7 @@ export function LogMemberForm({
     draft.clear();
     reset({ ...EMPTY_MEMBER_FORM, tag: prefillTag });
     setPhotos([]);
+    setPlace(null);
     setUploaderKey((k) => k + 1);
     setRestored(null);
   }
@@ -115,7 +139,7 @@ export function LogMemberForm({
       label: `Member ${values.tag.trim()}`,
       path: `/api/v1/sites/${siteId}/members`,
       presignPath: `/api/v1/sites/${siteId}/photos`,
-      body: { ...input, submit: values.submit, clientId: newClientId() },
+      body: { ...input, submit: values.submit, clientId: newClientId(), ...(placeRef.current ? { planPosition: placeRef.current } : {}) },
       photoIds: photos.map((p) => p.photoId),
       photos: queuedPhotos.current,
     });
@@ -126,7 +150,9 @@ export function LogMemberForm({
       return;
     }
     if (!r.sent) {
-      const { placed, unplaced } = placeErrors(r.error);
+      const planField = Object.entries(r.error.fields).find(([k]) => k.startsWith("planPosition"));
+      setPlaceError(planField?.[1]);
+      const { placed, unplaced } = placeErrors({ ...r.error, fields: Object.fromEntries(Object.entries(r.error.fields).filter(([k]) => !k.startsWith("planPosition"))) });
       const first = placed[0] as keyof MemberFormValues | undefined;
       setFormError(unplaced.length ? unplaced.join(" ") : "Some values need attention; see the fields marked below. Nothing was saved yet.");
       if (first && first !== "submit") setFocus(first);
@@ -143,6 +169,7 @@ export function LogMemberForm({
     const keep = getValues();
     reset({ ...EMPTY_MEMBER_FORM, zoneId: keep.zoneId, schemeId: keep.schemeId, memberTypeId: keep.memberTypeId, endConditions: keep.endConditions, loadSource: keep.loadSource, spacingX: keep.spacingX, spacingY: keep.spacingY });
     setPhotos([]);
+    setPlace(null);
     queuedPhotos.current = [];
     setUploaderKey((k) => k + 1);
     setSaved(null);
@@ -192,6 +219,7 @@ export function LogMemberForm({
         </div>
       ) : null}
       <MemberFields register={register} errors={formState.errors} watch={watch} unitSystem={unitSystem} zones={zones} schemes={schemes} types={types} />
+      <PlanPlacePicker siteId={siteId} zoneId={zoneId} value={place} onChange={setPlace} error={placeError} />
       {loaded ? <PhotoUploader key={uploaderKey} presignPath={`/api/v1/sites/${siteId}/photos`} initial={photos} onChange={onPhotos} /> : null}
       <label className="flex min-h-touch items-start gap-3 rounded-lg border-2 border-ink/20 bg-paper-raised p-3">
         <input type="checkbox" className="mt-1 h-5 w-5" aria-describedby={formState.errors.submit ? "submit-error" : undefined} {...register("submit")} />
