@@ -11,7 +11,8 @@ const globalForDb = globalThis as unknown as { __strutwiseSql?: postgres.Sql };
 export const sql =
   globalForDb.__strutwiseSql ??
   // connect_timeout: during a database restart a request fails within seconds (503) instead of hanging.
-  postgres(env.DATABASE_URL, { max: Number(process.env.DB_POOL_MAX ?? 10), connect_timeout: 5, onnotice: () => {} });
+  // max: DB_POOL_MAX (lib/env.ts: by default from the CPUs this process may use).
+  postgres(env.DATABASE_URL, { max: env.DB_POOL_MAX, connect_timeout: 5, onnotice: () => {} });
 globalForDb.__strutwiseSql = sql;
 
 export const db = drizzle(sql, { schema });

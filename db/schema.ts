@@ -1,7 +1,7 @@
 // The single source of truth for tables, enums and relations.
 import { relations, sql } from "drizzle-orm";
 import {
-  bigserial, boolean, check, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text,
+  bigint, bigserial, boolean, check, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text,
   timestamp, uniqueIndex, uuid,
 } from "drizzle-orm/pg-core";
 
@@ -282,8 +282,28 @@ export const members = pgTable(
       "members_plan_position",
       sql`(${t.planX} is null and ${t.planY} is null) or (${t.planX} between 0 and 1 and ${t.planY} between 0 and 1)`,
     ),
+    // "Failing" (check_pass is not true) is the register's most used filter and a few per cent of
+    // a site: the same sorts over just those rows, so a failing page does not walk past the passing ones.
+    index("members_site_failing_tag").on(t.siteId, t.tag).where(sql`${t.checkPass} is not true`),
+    index("members_site_failing_ext_tag").on(t.siteId, t.extensionMm, t.tag).where(sql`${t.checkPass} is not true`),
+    index("members_site_failing_updated_tag").on(t.siteId, t.updatedAt, t.tag).where(sql`${t.checkPass} is not true`),
+    index("members_site_failing_status_tag").on(t.siteId, t.status, t.tag).where(sql`${t.checkPass} is not true`),
+    index("members_site_failing_util_tag")
+      .on(t.siteId, sql`coalesce(${t.utilisation}, 'Infinity'::float8)`, t.tag)
+      .where(sql`${t.checkPass} is not true`),
   ],
 );
+
+/**
+ * One row per site, its stamp renewed by trigger (migration members_change_stamp) when a
+ * transaction that inserted, changed or deleted any of the site's members commits. The list keeps
+ * each filter's count only while the stamp is unchanged (db/queries/member-list.ts). No foreign
+ * key: the trigger runs while a site's members are removed with it.
+ */
+export const siteMemberStamps = pgTable("site_member_stamps", {
+  siteId: uuid("site_id").primaryKey(),
+  stamp: bigint("stamp", { mode: "number" }).notNull().default(0),
+});
 
 export const checks = pgTable(
   "checks",

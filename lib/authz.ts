@@ -1,9 +1,8 @@
 // Site access for pages (lib/auth/site-page.ts): the site and the roles held there, or 404. Route
 // handlers get the same answer through the seam (lib/api/route.ts and lib/api/resources.ts).
 import "server-only";
-import { getSiteAccessRow } from "@/db/queries/sites";
+import type { SessionAccess } from "@/db/queries/users";
 import type { PermissionName } from "@/lib/permissions";
-import type { SessionUser } from "@/lib/auth";
 import { NotFoundError } from "@/lib/errors";
 
 export type Permission = PermissionName;
@@ -14,12 +13,11 @@ export function isUuid(value: unknown): value is string {
 }
 
 /**
- * The site and the user's roles there. Another organisation's site, a site the user holds no
- * role on, or a malformed id are all "not found" so nothing reveals that they exist.
+ * The site and the user's roles there, as read with the session (getSessionUserAt). Another
+ * organisation's site, a site the user holds no role on, or a malformed id are all "not found"
+ * so nothing reveals that they exist.
  */
-export async function getSiteAccess(user: SessionUser, siteId: string) {
-  if (!isUuid(siteId)) throw new NotFoundError("That site");
-  const access = await getSiteAccessRow({ siteId, user });
-  if (!access || access.roles.length === 0) throw new NotFoundError("That site");
+export function siteAccessOr404(access: SessionAccess | null | undefined, what = "That site"): SessionAccess {
+  if (!access || access.roles.length === 0) throw new NotFoundError(what);
   return access;
 }

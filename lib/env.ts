@@ -1,5 +1,6 @@
 // Environment, parsed once. Local defaults need no .env; production sets every value
 // (see .env.example) and STRUTWISE_REQUIRE_CONFIG=true makes the defaults refuse to apply.
+import { availableParallelism } from "node:os";
 import { z } from "zod";
 
 const bool = z
@@ -28,23 +29,42 @@ const schema = z.object({
   MAIL_FROM: z.string().default("Strutwise <no-reply@strutwise.local>"),
   INBOX_URL: z.string().url().optional(),
   STRUTWISE_REQUIRE_CONFIG: bool.default(false),
+  /**
+   * Database connections this process keeps open at most. Unset: two per CPU the process may use,
+   * plus one (common practice: the PostgreSQL wiki's "number of database connections" rule of
+   * thumb, cores × 2 + one disk), at least 4 and at most 20 — one Node process serves requests on
+   * one event loop, so more connections than that only queue inside PostgreSQL. Leave room for
+   * every app and worker process under the server's max_connections.
+   */
+  DB_POOL_MAX: z.coerce
+    .number({ error: "DB_POOL_MAX must be a whole number of connections from 1 to 200." })
+    .int("DB_POOL_MAX must be a whole number of connections from 1 to 200.")
+    .min(1, "DB_POOL_MAX must be a whole number of connections from 1 to 200.")
+    .max(200, "DB_POOL_MAX must be a whole number of connections from 1 to 200.")
+    .default(() => defaultPoolMax()),
 });
+
+/** The pool size used when DB_POOL_MAX is not set (see the schema above). */
+export function defaultPoolMax(cpus = availableParallelism()): number {
+  return Math.min(20, Math.max(4, 2 * cpus + 1));
+}
 
 export type Env = z.infer<typeof schema>;
 
-function load(): Env {
-  const parsed = schema.safeParse(process.env);
+/** Parses an environment (process.env for the app; tests pass their own). */
+export function parseEnv(source: Record<string, string | undefined>): Env {
+  const parsed = schema.safeParse(source);
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`).join("\n");
     throw new Error(`Invalid environment configuration:\n${lines}`);
   }
   const env = parsed.data;
   if (env.STRUTWISE_REQUIRE_CONFIG) {
-    const missing = ["DATABASE_URL", "APP_URL", "NEXTAUTH_SECRET", "S3_BUCKET", "SMTP_HOST"].filter((k) => !process.env[k]);
+    const missing = ["DATABASE_URL", "APP_URL", "NEXTAUTH_SECRET", "S3_BUCKET", "SMTP_HOST"].filter((k) => !source[k]);
     if (missing.length) throw new Error(`Production configuration is missing: ${missing.join(", ")}`);
     if (env.NEXTAUTH_SECRET === LOCAL_SECRET) throw new Error("NEXTAUTH_SECRET must be set to a private value in production");
   }
   return env;
 }
 
-export const env = load();
+export const env = parseEnv(process.env);

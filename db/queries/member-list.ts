@@ -2,7 +2,7 @@
 import "server-only";
 import { and, eq, gte, inArray, lte, sql, type SQL } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
-import { members, memberTypes, schemes, zones } from "@/db/schema";
+import { members, memberTypes, schemes, siteMemberStamps, zones } from "@/db/schema";
 import { ValidationError } from "@/lib/errors";
 import { MEMBER_STATUSES, type MemberFilters, type MemberSort, type SortDir } from "@/lib/validations/member-list";
 
@@ -186,7 +186,10 @@ export type ListMembersArgs = {
   dir: SortDir;
   limit: number;
   cursor?: string;
-  /** Skip the count (export and labels page through everything and do not need it). */
+  /**
+   * Count the matching members. Default: on the first page only (no cursor) — the screen keeps
+   * it while paging, and a keyset page never pays for a count. Export and labels say false.
+   */
   withTotal?: boolean;
 };
 
@@ -194,18 +197,49 @@ export type MemberListPage = {
   items: MemberListItem[];
   nextCursor: string | null;
   prevCursor: string | null;
+  /** How many members match the filters: on the first page (no cursor); absent on later pages. */
   total?: number;
 };
 
 /**
+ * Counts already made, by site and filters, each with the site's member stamp it was counted
+ * under (site_member_stamps: renewed when any change to the site's members commits). A count is
+ * used only while the stamp read with the page is still that one, so it is never out of date;
+ * it saves counting 20,000 rows for every poll of an unchanged register.
+ */
+const counted = new Map<string, { stamp: string; total: number }>();
+const COUNTS_KEPT = 2000;
+
+function filtersKey(siteId: string, f: MemberFilters): string {
+  const parts = Object.entries(f)
+    .filter(([, v]) => v !== undefined)
+    .sort(([a], [b]) => (a < b ? -1 : 1));
+  return `${siteId}|${JSON.stringify(parts)}`;
+}
+
+function keepCount(key: string, stamp: string, total: number) {
+  counted.delete(key);
+  if (counted.size >= COUNTS_KEPT) counted.delete(counted.keys().next().value!);
+  counted.set(key, { stamp, total });
+}
+
+/** The site's member stamp as text ("none" before its first member), read in the statement it is part of. */
+const stampColumn = (siteId: string) =>
+  sql<string>`coalesce((select ${siteMemberStamps.stamp}::text from ${siteMemberStamps} where ${siteMemberStamps.siteId} = ${siteId}), 'none')`;
+
+/**
  * One page. A cursor points after a row (next pages) or, with b=1, before it (previous pages);
  * a "before" page is read in reverse order and turned round, so both directions are index scans.
+ * One round trip: the rows and the site's member stamp come in one statement; the count is a
+ * second statement only when this filter has not been counted under that stamp yet (and never
+ * inside a caller's transaction, whose own uncommitted changes others must not see).
  */
 export async function listMembers(args: ListMembersArgs, tx: DbOrTx = db): Promise<MemberListPage> {
   const { siteId, filters, sort, dir, limit } = args;
   const where = memberFilterConditions(siteId, filters);
   const key = SORT_KEYS[sort];
   const c = args.cursor ? decodeCursor(args.cursor, sort, dir) : null;
+  const withTotal = args.withTotal ?? !c;
   const backwards = !!c?.b;
   // Walking forward in "asc" or backward in "desc" both read ascending.
   const ascending = (dir === "asc") !== backwards;
@@ -216,27 +250,40 @@ export async function listMembers(args: ListMembersArgs, tx: DbOrTx = db): Promi
     );
   }
   const order = ascending ? [sql`${key.expr} asc`, sql`${members.tag} asc`] : [sql`${key.expr} desc`, sql`${members.tag} desc`];
+  const useCounts = withTotal && tx === db;
 
-  const rowsPromise = tx
-    .select({ ...itemColumns, sortValue: sortValueColumn(sort) })
+  const rows = (await tx
+    .select({ ...itemColumns, sortValue: sortValueColumn(sort), ...(useCounts ? { stamp: stampColumn(siteId) } : {}) })
     .from(members)
     .innerJoin(memberTypes, eq(memberTypes.id, members.memberTypeId))
     .leftJoin(zones, eq(zones.id, members.zoneId))
     .leftJoin(schemes, eq(schemes.id, members.schemeId))
     .where(and(...where))
     .orderBy(...order)
-    .limit(limit + 1) as unknown as Promise<Row[]>;
-  const totalPromise =
-    args.withTotal === false
-      ? Promise.resolve(undefined)
-      : tx
-          .select({ n: sql<number>`count(*)::int` })
-          .from(members)
-          .where(and(...memberFilterConditions(siteId, filters)))
-          .then((r) => Number(r[0]?.n ?? 0));
-  const [rows, total] = await Promise.all([rowsPromise, totalPromise]);
+    .limit(limit + 1)) as unknown as (Row & { stamp?: string })[];
 
   const more = rows.length > limit;
+  let total: number | undefined;
+  if (withTotal) {
+    if (!c && !more) {
+      // The first page holds every match: that is the count.
+      total = rows.length;
+    } else {
+      const countKey = filtersKey(siteId, filters);
+      const kept = useCounts ? counted.get(countKey) : undefined;
+      if (kept && rows[0]?.stamp === kept.stamp) total = kept.total;
+      else {
+        const [r] = await tx
+          .select({ n: sql<number>`count(*)::int`, ...(useCounts ? { stamp: stampColumn(siteId) } : {}) })
+          .from(members)
+          .where(and(...memberFilterConditions(siteId, filters)));
+        total = Number(r?.n ?? 0);
+        // Kept under the stamp read in the same statement as the count: the two agree.
+        if (useCounts && r && "stamp" in r) keepCount(countKey, r.stamp as string, total);
+      }
+    }
+  }
+
   const page = more ? rows.slice(0, limit) : rows;
   if (backwards) page.reverse();
   const first = page[0];

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, count, eq, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
-import { members, memberships, permits, sites, type SiteRole } from "@/db/schema";
+import { members, memberships, permits, sites } from "@/db/schema";
 import { countFailingNow } from "./member-history";
 
 export type SiteValues = {
@@ -15,41 +15,25 @@ export type SiteValues = {
   expiryWarningHours: number;
   timezone: string;
 };
-import type { SessionUser } from "./users";
+import { siteColumns } from "./site-columns";
+import { siteRoles, type SessionUser } from "./users";
 
-const siteColumns = {
-  id: sites.id,
-  organisationId: sites.organisationId,
-  name: sites.name,
-  code: sites.code,
-  address: sites.address,
-  timezone: sites.timezone,
-  unitSystem: sites.unitSystem,
-  designCode: sites.designCode,
-  permitValidityHours: sites.permitValidityHours,
-  inspectionIntervalDays: sites.inspectionIntervalDays,
-  plumbToleranceMm: sites.plumbToleranceMm,
-  expiryWarningHours: sites.expiryWarningHours,
-  archivedAt: sites.archivedAt,
-};
 
 export type SiteSummary = Awaited<ReturnType<typeof getSiteAccessRow>>;
 
-/** The site if it belongs to the user's organisation, with the roles the user holds there. */
+/** The site if it belongs to the user's organisation, with the roles the user holds there (one round trip). */
 export async function getSiteAccessRow({ siteId, user }: { siteId: string; user: SessionUser }, tx: DbOrTx = db) {
-  const [site] = await tx
-    .select(siteColumns)
+  const [row] = await tx
+    .select({
+      site: siteColumns,
+      // memberships_unique (user_id, site_id, role) answers this from the index.
+      roles: sql<string[] | null>`(select array_agg(${memberships.role}::text) from ${memberships} where ${memberships.userId} = ${user.id} and ${memberships.siteId} = ${siteId})`,
+    })
     .from(sites)
     .where(and(eq(sites.id, siteId), eq(sites.organisationId, user.organisationId)))
     .limit(1);
-  if (!site) return null;
-  const rows = await tx
-    .select({ role: memberships.role })
-    .from(memberships)
-    .where(and(eq(memberships.siteId, siteId), eq(memberships.userId, user.id)));
-  const roles = rows.map((r) => r.role) as SiteRole[];
-  if (user.isOrgAdmin && !roles.includes("admin")) roles.push("admin");
-  return { site, roles };
+  if (!row) return null;
+  return { site: row.site, roles: siteRoles(user, row.roles ?? []) };
 }
 
 export async function getSiteCounts({ siteId }: { siteId: string }, tx: DbOrTx = db) {

@@ -1,7 +1,8 @@
 import "server-only";
 import { and, count, eq, isNull, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
-import { memberships, organisations, revokedSessions, signInThrottle, sites, users } from "@/db/schema";
+import { memberships, organisations, revokedSessions, signInThrottle, sites, users, type SiteRole } from "@/db/schema";
+import { siteColumns, type SiteColumnsRow } from "./site-columns";
 
 export type SessionUser = {
   id: string;
@@ -29,19 +30,25 @@ export async function getUserForSignIn({ email }: { email: string }, tx: DbOrTx 
   return row ?? null;
 }
 
+export type SessionAccess = { site: SiteColumnsRow; roles: SiteRole[] };
+
 /**
  * The signed-in person, read on every request. `sessionVersion` is the one in their session
  * cookie: a deactivation or password reset bumps the stored one, so every older session ends.
+ * With `siteId`, the same single round trip also reads that site (if it is the person's
+ * organisation's) and every role they hold there now, so a route or page on a site learns who is
+ * asking and what they may do there in one indexed query: a role removed a moment ago is already
+ * gone from the answer.
  */
-export async function getSessionUser(
-  { id, sessionVersion, sid }: { id: string; sessionVersion?: number; sid?: string },
+export async function getSessionUserAt(
+  { id, sessionVersion, sid, siteId }: { id: string; sessionVersion?: number; sid?: string; siteId?: string },
   tx: DbOrTx = db,
-): Promise<SessionUser | null> {
+): Promise<{ user: SessionUser; access: SessionAccess | null } | null> {
   // A signed-out session's id is in revoked_sessions: the same round trip answers both questions.
   const revoked = sid
     ? sql<boolean>`exists (select 1 from ${revokedSessions} where ${revokedSessions.sid} = ${sid})`
     : sql<boolean>`false`;
-  const [row] = await tx
+  const base = tx
     .select({
       id: users.id,
       email: users.email,
@@ -52,15 +59,51 @@ export async function getSessionUser(
       disabledAt: users.disabledAt,
       sessionVersion: users.sessionVersion,
       revoked,
+      ...(siteId
+        ? {
+            site: siteColumns,
+            // memberships_unique (user_id, site_id, role) answers this from the index.
+            roles: sql<string[] | null>`(select array_agg(${memberships.role}::text) from ${memberships} where ${memberships.userId} = ${id} and ${memberships.siteId} = ${siteId})`,
+          }
+        : {}),
     })
     .from(users)
-    .innerJoin(organisations, eq(organisations.id, users.organisationId))
-    .where(eq(users.id, id))
-    .limit(1);
+    .innerJoin(organisations, eq(organisations.id, users.organisationId));
+  const query = siteId
+    ? base.leftJoin(sites, and(eq(sites.id, siteId), eq(sites.organisationId, users.organisationId)))
+    : base;
+  const [row] = (await query.where(eq(users.id, id)).limit(1)) as unknown as {
+    id: string; email: string; name: string; organisationId: string; organisationName: string; isOrgAdmin: boolean;
+    disabledAt: Date | null; sessionVersion: number; revoked: boolean; site?: SiteColumnsRow | null; roles?: string[] | null;
+  }[];
   if (!row || row.disabledAt || row.revoked) return null;
   if (sessionVersion !== undefined && sessionVersion !== row.sessionVersion) return null;
-  const { disabledAt: _disabled, revoked: _revoked, ...user } = row;
-  return user;
+  const user: SessionUser = {
+    id: row.id,
+    email: row.email,
+    name: row.name,
+    organisationId: row.organisationId,
+    organisationName: row.organisationName,
+    isOrgAdmin: row.isOrgAdmin,
+    sessionVersion: row.sessionVersion,
+  };
+  if (!row.site) return { user, access: null };
+  return { user, access: { site: row.site, roles: siteRoles(user, row.roles ?? []) } };
+}
+
+/** The roles a person holds on a site: their memberships, and admin everywhere for an organisation admin. */
+export function siteRoles(user: Pick<SessionUser, "isOrgAdmin">, held: readonly string[]): SiteRole[] {
+  const roles = [...new Set(held)] as SiteRole[];
+  if (user.isOrgAdmin && !roles.includes("admin")) roles.push("admin");
+  return roles;
+}
+
+/** The signed-in person alone (see getSessionUserAt). */
+export async function getSessionUser(
+  args: { id: string; sessionVersion?: number; sid?: string },
+  tx: DbOrTx = db,
+): Promise<SessionUser | null> {
+  return (await getSessionUserAt(args, tx))?.user ?? null;
 }
 
 /** The sites a user can see, with every role they hold there. Org admins see all their organisation's sites. */

@@ -10,19 +10,25 @@ import { getDelegationForUser, getPermitForUser } from "@/db/queries/permits";
 import { getPhotoForUser } from "@/db/queries/photos";
 import { getScheme } from "@/db/queries/schemes";
 import { getSiteAccessRow } from "@/db/queries/sites";
-import type { SessionUser } from "@/db/queries/users";
+import type { SessionAccess, SessionUser } from "@/db/queries/users";
 import type { SiteRole } from "@/db/schema";
 import { getZone } from "@/db/queries/zones";
-import { isUuid } from "@/lib/authz";
+import { isUuid, siteAccessOr404 } from "@/lib/authz";
 import { NotFoundError } from "@/lib/errors";
 
 export type SiteAccess = NonNullable<Awaited<ReturnType<typeof getSiteAccessRow>>>;
 export type Site = SiteAccess["site"];
 
-async function accessOr404(user: SessionUser, siteId: string, what: string): Promise<SiteAccess> {
-  const access = await getSiteAccessRow({ siteId, user });
-  if (!access || access.roles.length === 0) throw new NotFoundError(what);
-  return access;
+/**
+ * The access to one site already read with the session in the same request (the seam reads the
+ * path's siteId with the session: one round trip, see getSessionUserAt); a loader uses it when
+ * the record's site is that site and asks the database otherwise.
+ */
+export type KnownAccess = { siteId: string; access: SessionAccess | null };
+
+async function accessOr404(user: SessionUser, siteId: string, what: string, known?: KnownAccess): Promise<SiteAccess> {
+  const access = known && known.siteId === siteId ? known.access : await getSiteAccessRow({ siteId, user });
+  return siteAccessOr404(access, what);
 }
 
 function idOr404(params: Record<string, string>, name: string, what: string): string {
@@ -40,9 +46,10 @@ async function onSite<R>(
   param: string,
   what: string,
   find: (site: Site, id: string) => Promise<R | null>,
+  known?: KnownAccess,
 ): Promise<Loaded<R>> {
   const siteId = idOr404(params, "siteId", "That site");
-  const access = await accessOr404(user, siteId, "That site");
+  const access = await accessOr404(user, siteId, "That site", known);
   const id = idOr404(params, param, what);
   const resource = await find(access.site, id);
   if (!resource) throw new NotFoundError(what);
@@ -53,87 +60,87 @@ async function onSite<R>(
 export const RESOURCES = {
   site: {
     param: "siteId",
-    async load(user: SessionUser, params: Record<string, string>): Promise<Loaded<Site>> {
+    async load(user: SessionUser, params: Record<string, string>, known?: KnownAccess): Promise<Loaded<Site>> {
       const siteId = idOr404(params, "siteId", "That site");
-      const access = await accessOr404(user, siteId, "That site");
+      const access = await accessOr404(user, siteId, "That site", known);
       return { ...access, resource: access.site };
     },
   },
   member: {
     param: "memberId",
-    async load(user: SessionUser, params: Record<string, string>) {
+    async load(user: SessionUser, params: Record<string, string>, known?: KnownAccess) {
       const memberId = idOr404(params, "memberId", "That member");
       const member = await getMemberForUser({ memberId, organisationId: user.organisationId });
       if (!member) throw new NotFoundError("That member");
-      const access = await accessOr404(user, member.siteId, "That member");
+      const access = await accessOr404(user, member.siteId, "That member", known);
       return { ...access, resource: member };
     },
   },
   permit: {
     param: "permitId",
-    async load(user: SessionUser, params: Record<string, string>) {
+    async load(user: SessionUser, params: Record<string, string>, known?: KnownAccess) {
       const permitId = idOr404(params, "permitId", "That permit");
       const permit = await getPermitForUser({ permitId, organisationId: user.organisationId });
       if (!permit) throw new NotFoundError("That permit");
-      const access = await accessOr404(user, permit.siteId, "That permit");
+      const access = await accessOr404(user, permit.siteId, "That permit", known);
       return { ...access, resource: permit };
     },
   },
   photo: {
     param: "photoId",
-    async load(user: SessionUser, params: Record<string, string>) {
+    async load(user: SessionUser, params: Record<string, string>, known?: KnownAccess) {
       const photoId = idOr404(params, "photoId", "That photo");
       const photo = await getPhotoForUser({ photoId, organisationId: user.organisationId });
       if (!photo) throw new NotFoundError("That photo");
-      const access = await accessOr404(user, photo.siteId, "That photo");
+      const access = await accessOr404(user, photo.siteId, "That photo", known);
       return { ...access, resource: photo };
     },
   },
   delegation: {
     param: "delegationId",
-    async load(user: SessionUser, params: Record<string, string>) {
+    async load(user: SessionUser, params: Record<string, string>, known?: KnownAccess) {
       const delegationId = idOr404(params, "delegationId", "That issuing scope");
       const delegation = await getDelegationForUser({ delegationId, organisationId: user.organisationId });
       if (!delegation) throw new NotFoundError("That issuing scope");
-      const access = await accessOr404(user, delegation.siteId, "That issuing scope");
+      const access = await accessOr404(user, delegation.siteId, "That issuing scope", known);
       return { ...access, resource: delegation };
     },
   },
   alert: {
     param: "alertId",
-    async load(user: SessionUser, params: Record<string, string>) {
+    async load(user: SessionUser, params: Record<string, string>, known?: KnownAccess) {
       const alertId = idOr404(params, "alertId", "That alert");
       const alert = await getAlertForUser({ alertId, organisationId: user.organisationId });
       if (!alert) throw new NotFoundError("That alert");
-      const access = await accessOr404(user, alert.siteId, "That alert");
+      const access = await accessOr404(user, alert.siteId, "That alert", known);
       return { ...access, resource: alert };
     },
   },
   zone: {
     param: "zoneId",
-    load: (user: SessionUser, params: Record<string, string>) =>
-      onSite(user, params, "zoneId", "That zone", (site, zoneId) => getZone({ siteId: site.id, zoneId })),
+    load: (user: SessionUser, params: Record<string, string>, known?: KnownAccess) =>
+      onSite(user, params, "zoneId", "That zone", (site, zoneId) => getZone({ siteId: site.id, zoneId }), known),
   },
   scheme: {
     param: "schemeId",
-    load: (user: SessionUser, params: Record<string, string>) =>
-      onSite(user, params, "schemeId", "That scheme", (site, schemeId) => getScheme({ siteId: site.id, schemeId })),
+    load: (user: SessionUser, params: Record<string, string>, known?: KnownAccess) =>
+      onSite(user, params, "schemeId", "That scheme", (site, schemeId) => getScheme({ siteId: site.id, schemeId }), known),
   },
   /** A type of the site's organisation library (archived ones too: they can still be edited or deleted). */
   memberType: {
     param: "typeId",
-    load: (user: SessionUser, params: Record<string, string>) =>
+    load: (user: SessionUser, params: Record<string, string>, known?: KnownAccess) =>
       onSite(user, params, "typeId", "That member type", (site, memberTypeId) =>
         getMemberType({ organisationId: site.organisationId, memberTypeId, includeArchived: true }),
-      ),
+      known),
   },
   invitation: {
     param: "invitationId",
-    async load(user: SessionUser, params: Record<string, string>) {
+    async load(user: SessionUser, params: Record<string, string>, known?: KnownAccess) {
       const invitationId = idOr404(params, "invitationId", "That invitation");
       const invitation = await getInvitationForOrg({ invitationId, organisationId: user.organisationId });
       if (!invitation?.siteId || (params.siteId !== undefined && params.siteId !== invitation.siteId)) throw new NotFoundError("That invitation");
-      const access = await accessOr404(user, invitation.siteId, "That invitation");
+      const access = await accessOr404(user, invitation.siteId, "That invitation", known);
       return { ...access, resource: invitation };
     },
   },

@@ -7,7 +7,8 @@ import "@/lib/validations/messages";
 import type { z } from "zod";
 import type { SiteRole } from "@/db/schema";
 import { listUserSites } from "@/db/queries/users";
-import { requireApiUser, type SessionUser } from "@/lib/auth";
+import { requireApiSession, requireApiUser, type SessionUser } from "@/lib/auth";
+import { isUuid } from "@/lib/authz";
 import { ConflictError, fieldErrorsFromZod, ForbiddenError, ValidationError } from "@/lib/errors";
 import { rolesAllowPure, type PermissionName } from "@/lib/permissions";
 import { apiHandler } from "./index";
@@ -131,8 +132,10 @@ export function siteRoute<K extends ResourceKind, B extends Parser | undefined =
 ) {
   const bodyMode: RouteMeta["body"] = spec.bodyMode ?? (spec.body ? "json" : "none");
   const handler = apiHandler<Record<string, string>>(async (req, { params }) => {
-    const user = await requireApiUser();
-    const loaded = await RESOURCES[spec.resource].load(user, params);
+    // Who is asking and, for a path with a site id, that site and their roles there: one round trip.
+    const siteId = isUuid(params.siteId) ? params.siteId : undefined;
+    const { user, access } = await requireApiSession(siteId);
+    const loaded = await RESOURCES[spec.resource].load(user, params, siteId ? { siteId, access } : undefined);
     const may = (p: PermissionName) => rolesAllowPure(loaded.roles, p);
     if (!may(spec.permission)) throw new ForbiddenError(spec.forbidden);
     if (loaded.site.archivedAt && !spec.allowArchived && !READ_METHODS.has(req.method))

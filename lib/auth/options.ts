@@ -7,13 +7,16 @@ import { env } from "@/lib/env";
 import { checkCredentials } from "./sign-in";
 
 const SESSION_MAX_AGE_S = 12 * 60 * 60;
+const SESSION_COOKIE = sessionCookie(env.APP_URL.startsWith("https:"));
+/** The session cookie's name, for lib/auth's per-request reading of it. */
+export const SESSION_COOKIE_NAME = SESSION_COOKIE.name;
 
 export const authOptions: NextAuthOptions = {
   secret: env.NEXTAUTH_SECRET,
   session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_S },
   // HttpOnly, SameSite=Lax always; Secure (and the __Secure- prefix) when APP_URL is https.
   useSecureCookies: env.APP_URL.startsWith("https:"),
-  cookies: { sessionToken: sessionCookie(env.APP_URL.startsWith("https:")) },
+  cookies: { sessionToken: SESSION_COOKIE },
   pages: { signIn: "/sign-in", signOut: "/sign-out", error: "/sign-in" },
   providers: [
     CredentialsProvider({

@@ -1,7 +1,7 @@
 // QR tag labels for members: 21 per A4 sheet (3 × 7 labels of 63.5 × 38.1 mm, a common self-adhesive
 // layout). Each QR code opens the member's page; it is drawn as vector squares so it prints sharp.
 import { Document, Page, Path, StyleSheet, Svg, Text, View, renderToBuffer } from "@react-pdf/renderer";
-import QRCode from "qrcode";
+import { qrPath } from "./qr";
 import { CAUTION_TEXT } from "@/lib/caution";
 import { PDF_FONT_FAMILY, registerPdfFonts } from "./fonts";
 
@@ -37,25 +37,6 @@ function tagSize(tag: string) {
   if (tag.length <= 13) return 13;
   if (tag.length <= 20) return 10;
   return 8;
-}
-
-/** The QR code of `text` as one SVG path of unit squares, with a one-module quiet zone. */
-export function qrPath(text: string): { d: string; size: number } {
-  const qr = QRCode.create(text, { errorCorrectionLevel: "M" });
-  const n = qr.modules.size;
-  // One rectangle per horizontal run of dark modules: a fraction of the path a square per module
-  // would need, which is what makes a sheet of hundreds of labels quick to lay out.
-  let d = "";
-  for (let r = 0; r < n; r++) {
-    for (let c = 0; c < n; c++) {
-      if (!qr.modules.get(r, c)) continue;
-      let run = 1;
-      while (c + run < n && qr.modules.get(r, c + run)) run++;
-      d += `M${c + 2} ${r + 2}h${run}v1h-${run}z`;
-      c += run - 1;
-    }
-  }
-  return { d, size: n + 4 };
 }
 
 export function memberUrl(appUrl: string, siteId: string, memberId: string) {

@@ -1,8 +1,8 @@
 // The permit as a PDF: black on white, readable when photocopied, on A4 or US Letter.
-import { Document, Image, Page, StyleSheet, Text, View, renderToBuffer } from "@react-pdf/renderer";
-import QRCode from "qrcode";
+import { Document, Page, Path, StyleSheet, Svg, Text, View, renderToBuffer } from "@react-pdf/renderer";
 import { CAUTION_TEXT } from "@/lib/caution";
 import { PDF_FONT_FAMILY, registerPdfFonts } from "./fonts";
+import { qrPath } from "./qr";
 
 registerPdfFonts();
 
@@ -89,7 +89,8 @@ function Fact({ k, v, last = false }: { k: string; v: string; last?: boolean }) 
   );
 }
 
-export function PermitDocument({ data, qrDataUrl, size }: { data: PermitPdfData; qrDataUrl: string; size: "A4" | "LETTER" }) {
+export function PermitDocument({ data, size }: { data: PermitPdfData; size: "A4" | "LETTER" }) {
+  const qr = qrPath(data.permitUrl);
   // One zone is named in the facts above; several get their own column.
   const columns = data.zones.length > 1 ? cols : cols.filter((c) => c.key !== "zone").map((c) => (c.key === "type" ? { ...c, width: "45%" } : c));
   const facts: [string, string][] = [
@@ -118,8 +119,10 @@ export function PermitDocument({ data, qrDataUrl, size }: { data: PermitPdfData;
             <Text style={s.status}>{data.statusLabel}</Text>
           </View>
           <View style={s.qrBox}>
-            {/* eslint-disable-next-line jsx-a11y/alt-text -- react-pdf Image has no alt */}
-            <Image src={qrDataUrl} style={s.qr} />
+            {/* Vector squares: sharp on paper, and no image to encode and decode for every PDF. */}
+            <Svg style={s.qr} viewBox={`0 0 ${qr.size} ${qr.size}`}>
+              <Path d={qr.d} fill="#000000" />
+            </Svg>
             <Text style={s.small}>Scan for the live permit</Text>
           </View>
         </View>
@@ -207,6 +210,5 @@ export function PermitDocument({ data, qrDataUrl, size }: { data: PermitPdfData;
 }
 
 export async function renderPermitPdf(data: PermitPdfData, size: "A4" | "LETTER"): Promise<Buffer> {
-  const qrDataUrl = await QRCode.toDataURL(data.permitUrl, { errorCorrectionLevel: "M", margin: 1, width: 300, color: { dark: "#000000", light: "#ffffff" } });
-  return renderToBuffer(<PermitDocument data={data} qrDataUrl={qrDataUrl} size={size} />);
+  return renderToBuffer(<PermitDocument data={data} size={size} />);
 }

@@ -77,3 +77,25 @@ test("import a CSV with one bad row, read the report, then import it fixed", asy
   await expect(visible(page, `E2E-${stamp}-1`)).toBeVisible();
   await expect(visible(page, `E2E-${stamp}-2`)).toBeVisible();
 });
+
+test("the member count stays in view on later pages, and on a later page opened from its address", async ({ page }) => {
+  test.slow();
+  await signIn(page, "engineer@demo.example");
+  await openRegister(page);
+  await page.getByLabel("Rows per page").selectOption("25");
+  const total = page.getByTestId("register-total");
+  await expect(total).toHaveText(/^\d[\d,]*$/);
+  const count = (await total.textContent())!;
+  // More than one page of the demo site at 25 a page.
+  expect(Number(count.replace(/,/g, ""))).toBeGreaterThan(25);
+
+  await page.getByRole("button", { name: "Next →" }).click();
+  await expect(page).toHaveURL(/cursor=/);
+  await expect(page.getByRole("button", { name: "← Previous" })).toBeEnabled();
+  await expect(total).toHaveText(count);
+
+  // A kept link to page 2: the count is fetched for it.
+  await page.reload();
+  await expect(page.getByRole("button", { name: "← Previous" })).toBeEnabled();
+  await expect(total).toHaveText(count);
+});

@@ -4,7 +4,7 @@
 // TanStack Table model over the server's row type. The parts: register-filters (filters),
 // register-table (desk table and its columns), register-cards (phone), register-selection
 // (what to do with chosen members) and register-labels (QR label sheets).
-import { keepPreviousData, QueryClient, QueryClientProvider, useQuery } from "@tanstack/react-query";
+import { keepPreviousData, QueryClient, QueryClientProvider, useQuery, useQueryClient } from "@tanstack/react-query";
 import { getCoreRowModel, useReactTable, type RowSelectionState, type SortingState, type VisibilityState } from "@tanstack/react-table";
 import Link from "next/link";
 import { useState } from "react";
@@ -53,10 +53,26 @@ const isFiltered = (query: Record<string, string>) => Object.keys(query).some((k
 function Register({ siteId, siteName, unitSystem, options, canImport, canLog, canRequestPermit }: Props) {
   const { query, cols, update, clear } = useRegisterUrl();
   const qs = new URLSearchParams(query).toString();
-  const { data, error, isFetching, isPending } = useQuery<MemberListPage, ApiError>({
+  const queryClient = useQueryClient();
+  // The API counts the matches on the first page only; the count is kept per filter set (sort
+  // does not change it) so paging on shows it without counting again.
+  const countQs = filterQueryString(query, { withSort: false });
+  const totalKey = (filters: string) => ["members-total", siteId, filters];
+  const { data, error, isFetching, isPending, isPlaceholderData } = useQuery<MemberListPage, ApiError>({
     queryKey: ["members", siteId, qs],
-    queryFn: () => fetchPage(siteId, qs),
+    queryFn: async () => {
+      const page = await fetchPage(siteId, qs);
+      if (page.total !== undefined) queryClient.setQueryData(totalKey(countQs), page.total);
+      return page;
+    },
     placeholderData: keepPreviousData,
+  });
+  // Opened straight on a later page (a kept address, Back): ask once for the count.
+  const counted = useQuery<number, ApiError>({
+    queryKey: totalKey(countQs),
+    queryFn: async () => (await fetchPage(siteId, [countQs, "limit=1"].filter(Boolean).join("&"))).total ?? 0,
+    enabled: !!data && !isPlaceholderData && data.total === undefined,
+    staleTime: 60_000,
   });
   const [selection, setSelection] = useState<RowSelectionState>({});
 
@@ -89,7 +105,7 @@ function Register({ siteId, siteName, unitSystem, options, canImport, canLog, ca
 
   const selectedIds = Object.keys(selection).filter((k) => selection[k]);
   const filterQs = filterQueryString(query);
-  const total = data?.total;
+  const total = data?.total ?? (isPlaceholderData ? undefined : counted.data);
   const fieldErrors = error?.status === 422 ? error.fields : {};
 
   const pageLinks = (
