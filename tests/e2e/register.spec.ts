@@ -83,7 +83,17 @@ test("the member count stays in view on later pages, and on a later page opened 
   await signIn(page, "engineer@demo.example");
   await openRegister(page);
   await page.getByLabel("Rows per page").selectOption("25");
+  // Only the demo's own level props: other journeys add members to this site while this one runs,
+  // and the count this test follows must not move under it.
   const total = page.getByTestId("register-total");
+  await expect(total).toHaveText(/^\d[\d,]*$/);
+  const unfiltered = (await total.textContent())!;
+  const filtersButton = page.getByRole("button", { name: /^Filters/ });
+  if (await filtersButton.isVisible()) await filtersButton.click();
+  await page.getByLabel("Search by tag").fill("WXW-L");
+  await expect(page).toHaveURL(/q=WXW-L/i);
+  // The site has members besides its level props, so the count changes once the filter applies.
+  await expect(total).not.toHaveText(unfiltered);
   await expect(total).toHaveText(/^\d[\d,]*$/);
   const count = (await total.textContent())!;
   // More than one page of the demo site at 25 a page.
