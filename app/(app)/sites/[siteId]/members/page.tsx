@@ -22,6 +22,7 @@ export default async function RegisterPage({ params }: { params: Promise<{ siteI
           canImport={may("importMembers")}
           canLog={may("logMember")}
           canRequestPermit={may("requestPermit")}
+          canInspect={may("inspect")}
         />
       </Suspense>
       <CautionNotice compact />
