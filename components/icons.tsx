@@ -13,6 +13,8 @@ const paths: Record<NavIcon | "more" | "user" | "ok" | "bad" | "warn", string> =
   people: "M9 11a4 4 0 1 0 0-8 4 4 0 0 0 0 8zM2 21c0-4 3-7 7-7s7 3 7 7M17 11a3 3 0 1 0 0-6M22 21c0-3-2-6-5-6",
   sites: "M3 21V9l9-6 9 6v12zM9 21v-7h6v7",
   settings: "M12 8a4 4 0 1 0 0 8 4 4 0 0 0 0-8zM12 2v3M12 19v3M2 12h3M19 12h3M5 5l2 2M17 17l2 2M5 19l2-2M17 7l2-2",
+  // A QR code's corner squares inside a viewfinder.
+  scan: "M3 8V3h5M16 3h5v5M21 16v5h-5M8 21H3v-5M7 7h4v4H7zM13 13h4v4h-4zM13 7h4v4h-4zM7 13h4v4H7z",
   more: "M5 12h.01M12 12h.01M19 12h.01",
   user: "M12 12a5 5 0 1 0 0-10 5 5 0 0 0 0 10zM3 22c0-5 4-8 9-8s9 3 9 8",
   ok: "M4 12l5 5L20 6",

@@ -42,12 +42,14 @@ export function SideNav({ items, rootHref }: { items: NavItem[]; rootHref: strin
   );
 }
 
-/** Phone: a bottom bar with the primary items and a "More" sheet for the rest. */
+/** Phone: a bottom bar with the primary items, the scan button in the middle and a "More" sheet for the rest. */
 export function BottomNav({ items, rootHref }: { items: NavItem[]; rootHref: string }) {
   const current = activeHref(usePathname(), items, rootHref);
   const [open, setOpen] = useState(false);
-  const primary = items.filter((i) => i.primary).slice(0, 4);
-  const rest = items.filter((i) => !primary.includes(i));
+  const scan = items.find((i) => i.scan);
+  const primary = items.filter((i) => i.primary && !i.scan).slice(0, 4);
+  const rest = items.filter((i) => !primary.includes(i) && i !== scan);
+  const half = Math.ceil(primary.length / 2);
   return (
     <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 border-t-2 border-ink/20 bg-paper-raised pb-[env(safe-area-inset-bottom)] md:hidden print:hidden">
       {open && rest.length > 0 ? (
@@ -67,14 +69,29 @@ export function BottomNav({ items, rootHref }: { items: NavItem[]; rootHref: str
         </ul>
       ) : null}
       <ul className="flex">
-        {primary.map((item) => {
+        {[...primary.slice(0, half), ...(scan ? [scan] : []), ...primary.slice(half)].map((item) => {
           const active = item.href === current;
+          if (item === scan) {
+            return (
+              <li key={item.href} className="flex flex-1 items-center justify-center">
+                <Link
+                  href={item.href}
+                  aria-label={item.label}
+                  aria-current={active ? "page" : undefined}
+                  className="flex min-h-[56px] min-w-[56px] flex-col items-center justify-center gap-0.5 rounded-xl bg-brand px-1 text-[11px] font-semibold text-white"
+                >
+                  <Icon name={item.icon} />
+                  Scan
+                </Link>
+              </li>
+            );
+          }
           return (
-            <li key={item.href} className="flex-1">
+            <li key={item.href} className="min-w-0 flex-1">
               <Link
                 href={item.href}
                 aria-current={active ? "page" : undefined}
-                className={`flex min-h-[56px] flex-col items-center justify-center gap-0.5 text-xs font-semibold ${active ? "text-brand" : "text-ink-soft"}`}
+                className={`flex min-h-[56px] flex-col items-center justify-center gap-0.5 text-[11px] font-semibold ${active ? "text-brand" : "text-ink-soft"}`}
               >
                 <Icon name={item.icon} />
                 {item.label}
@@ -88,7 +105,7 @@ export function BottomNav({ items, rootHref }: { items: NavItem[]; rootHref: str
               type="button"
               aria-expanded={open}
               onClick={() => setOpen((o) => !o)}
-              className="flex min-h-[56px] w-full flex-col items-center justify-center gap-0.5 text-xs font-semibold text-ink-soft"
+              className="flex min-h-[56px] w-full flex-col items-center justify-center gap-0.5 text-[11px] font-semibold text-ink-soft"
             >
               <Icon name="more" />
               More

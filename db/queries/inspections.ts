@@ -257,3 +257,12 @@ export async function getMemberForInspection({ memberId, siteId }: { memberId: s
     memberTypeName: r.member_type_name as string,
   };
 }
+
+/** The members of a site among `memberIds` (others — another site's, another organisation's, none — are left out), for a bulk record. */
+export async function listSiteMembersForInspection({ siteId, memberIds }: { siteId: string; memberIds: string[] }, tx: DbOrTx = db) {
+  if (memberIds.length === 0) return [];
+  return tx
+    .select({ id: members.id, tag: members.tag, status: members.status })
+    .from(members)
+    .where(and(eq(members.siteId, siteId), inArray(members.id, memberIds)));
+}

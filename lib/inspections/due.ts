@@ -43,3 +43,18 @@ export const INSPECTION_STATE_LABELS: Record<InspectionState, string> = {
 
 /** Order on the round: what needs doing first. */
 export const INSPECTION_STATE_ORDER: InspectionState[] = ["overdue", "due_now", "failed", "never", "due_soon", "in_date"];
+
+/** The states the round lists under "To inspect" (the rest are in date). */
+export const NEEDS_DOING: InspectionState[] = ["overdue", "due_now", "failed", "never", "due_soon"];
+
+/** The round in the order it is walked: what needs doing first, then by due date, then by tag. */
+export function orderRound<T extends DueInput & { tag: string; inspectionIntervalDays: number }>(rows: T[], now: Date): (T & { due: DueOutcome })[] {
+  return rows
+    .map((r) => ({ ...r, due: inspectionState(r, now, r.inspectionIntervalDays) }))
+    .sort(
+      (a, b) =>
+        INSPECTION_STATE_ORDER.indexOf(a.due.state) - INSPECTION_STATE_ORDER.indexOf(b.due.state) ||
+        (a.due.dueAt?.getTime() ?? 0) - (b.due.dueAt?.getTime() ?? 0) ||
+        a.tag.localeCompare(b.tag),
+    );
+}

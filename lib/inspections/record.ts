@@ -3,7 +3,7 @@
 // alert — all in one transaction, so none of it happens without the rest. The route (on the seam
 // in lib/api/route.ts) has found the member and checked the `inspect` permission.
 import "server-only";
-import { transaction } from "@/db";
+import { transaction, type Tx } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
 import {
   attachInspectionPhotos, findPhotosForInspection, getInspectionByClientId, getLatestInspection, insertInspection, lockMemberForInspection,
@@ -27,10 +27,12 @@ import { nextDueFrom } from "./due";
  * answer, or sent twice at once): the inspection recorded the first time, `replayed: true`, and
  * nothing new. The member row lock serialises twins, so the second always sees the first.
  */
-export async function recordInspection(args: { user: SessionUser; member: { id: string }; input: InspectionInput; now?: Date }) {
+export async function recordInspection(args: { user: SessionUser; member: { id: string }; input: InspectionInput; now?: Date; tx?: Tx }) {
   const { user, input, now = new Date() } = args;
   const memberId = args.member.id;
-  return transaction(async (tx) => {
+  // Inside a caller's transaction (a bulk record: all or nothing), or in one of its own.
+  const run = <T>(fn: (tx: Tx) => Promise<T>): Promise<T> => (args.tx ? fn(args.tx) : transaction(fn));
+  return run(async (tx) => {
     // Locked so two inspections cannot interleave; gone only if deleted since the route found it.
     const member = await lockMemberForInspection({ memberId }, tx);
     if (!member) throw new NotFoundError("That member");

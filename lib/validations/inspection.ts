@@ -48,6 +48,38 @@ export const inspectionSchema = z
 
 export type InspectionInput = z.infer<typeof inspectionSchema>;
 
+/** At most this many members are recorded satisfactory in one bulk request. */
+export const MAX_BULK_INSPECTIONS = 200;
+
+/**
+ * "All satisfactory" for members chosen in the register: each is recorded as its own passing
+ * inspection with every checklist item satisfactory. Only passes: a failure needs its item's note,
+ * so it is recorded on the member's own checklist.
+ */
+export const bulkInspectionSchema = z
+  .object({
+    memberIds: z
+      .array(z.string({ error: () => "Each member id must be text." }).uuid("Each member id must be the id of a member in the register."), {
+        error: () => "memberIds must be a list of member ids.",
+      })
+      .min(1, "Choose at least one member.")
+      .max(MAX_BULK_INSPECTIONS, `At most ${MAX_BULK_INSPECTIONS} members at once; choose fewer.`),
+    result: z.literal("pass", {
+      error: () => 'result must be "pass": only satisfactory inspections are recorded in bulk; record a failure on the member\'s own checklist, with what is wrong.',
+    }),
+    notes: z.string({ error: () => "Notes must be text." }).trim().max(2000, "Notes have at most 2,000 characters.").optional(),
+    clientId: clientIdSchema.optional(),
+  })
+  .superRefine((v, ctx) => {
+    const seen = new Set<string>();
+    v.memberIds.forEach((id, i) => {
+      if (seen.has(id)) ctx.addIssue({ code: "custom", path: ["memberIds", i], message: "This member is listed twice." });
+      seen.add(id);
+    });
+  });
+
+export type BulkInspectionInput = z.infer<typeof bulkInspectionSchema>;
+
 export const inspectionTriggerSchema = z.object({
   zoneId: z.string().uuid("Choose a zone from the list, or the whole site.").nullable().optional(),
   reason: z

@@ -20,7 +20,7 @@ test("an engineer's failed inspection on a phone reaches the site manager by e-m
   await signIn(page, "engineer@demo.example");
   await openSite(page, SITE);
   const nav = mainNav(page);
-  await nav.getByRole("button", { name: "More" }).click();
+  // Inspections is in the phone's bottom bar for everyone who records inspections.
   await nav.getByRole("link", { name: "Inspections" }).click();
   await expect(page.getByRole("heading", { level: 1, name: "Inspection round" })).toBeVisible();
   // Recently inspected members are in date, so show them all, then one tap on the member.

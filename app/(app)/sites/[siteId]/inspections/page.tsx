@@ -8,14 +8,12 @@ import { listInspectionRound, listRecentTriggers, listRoundFilters } from "@/db/
 import { formatWhen } from "@/lib/alerts/format";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { isUuid } from "@/lib/authz";
-import { inspectionState, INSPECTION_STATE_LABELS, INSPECTION_STATE_ORDER, type InspectionState } from "@/lib/inspections/due";
+import { INSPECTION_STATE_LABELS, INSPECTION_STATE_ORDER, NEEDS_DOING, orderRound, type InspectionState } from "@/lib/inspections/due";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
 import { InspectionStateBadge } from "./state-badge";
 import { TriggerForm } from "./trigger-form";
 
 export const metadata: Metadata = { title: "Inspections" };
-
-const NEEDS_DOING: InspectionState[] = ["overdue", "due_now", "failed", "never", "due_soon"];
 
 export default async function InspectionRoundPage({
   params, searchParams,
@@ -34,23 +32,20 @@ export default async function InspectionRoundPage({
   ]);
   const now = new Date();
   const tz = site.timezone;
-  const withState = rows
-    .map((r) => ({ ...r, due: inspectionState(r, now, r.inspectionIntervalDays) }))
-    .sort(
-      (a, b) =>
-        INSPECTION_STATE_ORDER.indexOf(a.due.state) - INSPECTION_STATE_ORDER.indexOf(b.due.state) ||
-        (a.due.dueAt?.getTime() ?? 0) - (b.due.dueAt?.getTime() ?? 0) ||
-        a.tag.localeCompare(b.tag),
-    );
+  const withState = orderRound(rows, now);
   const counts = Object.fromEntries(INSPECTION_STATE_ORDER.map((s) => [s, withState.filter((r) => r.due.state === s).length])) as Record<InspectionState, number>;
   const shown = showAll ? withState : withState.filter((r) => NEEDS_DOING.includes(r.due.state));
-  const qs = (extra: Record<string, string | null>) => {
+  function qs(extra: Record<string, string | null>) {
     const p = new URLSearchParams();
     const all = { zone: zoneId, scheme: schemeId, show: showAll ? "all" : null, ...extra };
     for (const [k, v] of Object.entries(all)) if (v) p.set(k, v);
     const s = p.toString();
     return s ? `?${s}` : "";
-  };
+  }
+  // Carried to each member's checklist, so "next due" after saving stays in the same zone and scheme.
+  const roundQs = qs({ show: null });
+  const completed = typeof q.complete === "string" ? q.complete.slice(0, 40) : null;
+  const toDo = withState.filter((r) => NEEDS_DOING.includes(r.due.state)).length;
 
   return (
     <div className="flex flex-col gap-4">
@@ -64,6 +59,12 @@ export default async function InspectionRoundPage({
           {site.plumbToleranceMm} mm.
         </p>
       </div>
+
+      {completed ? (
+        <p role="status" className="flex items-center gap-2 rounded-lg border-2 border-ok bg-ok-soft p-3 font-semibold print:hidden">
+          <Icon name="ok" /> Recorded {completed} — round complete{toDo ? `, apart from ${toDo} listed below` : ": nothing else here is due"}.
+        </p>
+      ) : null}
 
       <form method="get" className="print:hidden grid gap-2 rounded-xl border-2 border-ink/15 bg-paper-raised p-3 sm:grid-cols-[1fr_1fr_auto]" aria-label="Filter the round">
         <label className="flex min-w-0 flex-col gap-1 text-sm font-semibold">
@@ -137,7 +138,7 @@ export default async function InspectionRoundPage({
                           : `${r.due.state === "overdue" ? "Was due" : "Due"} ${formatWhen(r.due.dueAt!, tz)} · last passed ${formatWhen(r.lastInspectedAt!, tz)}`}
                   </p>
                 </div>
-                <ButtonLink href={`/sites/${site.id}/members/${r.memberId}/inspect`} variant={NEEDS_DOING.includes(r.due.state) ? "primary" : "secondary"} aria-label={`Inspect ${r.tag}`} className="print:hidden">
+                <ButtonLink href={`/sites/${site.id}/members/${r.memberId}/inspect${roundQs}`} variant={NEEDS_DOING.includes(r.due.state) ? "primary" : "secondary"} aria-label={`Inspect ${r.tag}`} className="print:hidden">
                   <Icon name="inspect" className="h-5 w-5" /> Inspect
                 </ButtonLink>
                 {/* On paper: room to tick the member off on the round. */}

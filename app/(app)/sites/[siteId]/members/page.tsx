@@ -24,6 +24,7 @@ export default async function RegisterPage({ params }: { params: Promise<{ siteI
           canImport={may("importMembers")}
           canLog={may("logMember")}
           canRequestPermit={may("requestPermit")}
+          canInspect={may("inspect")}
         />
       </Suspense>
       <ZonePlanLinks siteId={site.id} zones={zones} title="See the members on a zone plan" />

@@ -1,15 +1,17 @@
 "use client";
-// What can be done with the members chosen in the register: QR labels, or a permit request for them.
+// What can be done with the members chosen in the register: QR labels, a permit request for them,
+// or recording them all as inspected and satisfactory.
 import Link from "next/link";
 import { buttonClass } from "@/components/ui/button";
+import { BulkSatisfactory } from "./register-bulk-inspect";
 import { LabelsForFiltered, MAX_LABELS, useLabelSheet } from "./register-labels";
 
 /** Ids in a permit-request link: a request takes at most this many members from the register at once. */
 export const MAX_PERMIT_PREFILL = 200;
 
 export function RegisterSelection({
-  siteId, selectedIds, onClear, filterQs, total, canRequestPermit,
-}: { siteId: string; selectedIds: string[]; onClear: () => void; filterQs: string; total: number | undefined; canRequestPermit: boolean }) {
+  siteId, selectedIds, onClear, filterQs, total, canRequestPermit, canInspect,
+}: { siteId: string; selectedIds: string[]; onClear: () => void; filterQs: string; total: number | undefined; canRequestPermit: boolean; canInspect: boolean }) {
   const labels = useLabelSheet(siteId);
   const n = selectedIds.length;
   return (
@@ -42,6 +44,7 @@ export function RegisterSelection({
           <LabelsForFiltered siteId={siteId} filterQs={filterQs} total={total} />
         </>
       )}
+      {canInspect ? <BulkSatisfactory siteId={siteId} selectedIds={selectedIds} onDone={onClear} /> : null}
       {labels.error ? (
         <p role="alert" className="w-full font-semibold text-bad">
           {labels.error}

@@ -37,6 +37,7 @@ type Props = {
   canImport: boolean;
   canLog: boolean;
   canRequestPermit: boolean;
+  canInspect: boolean;
 };
 
 export function RegisterView(props: Props) {
@@ -50,7 +51,7 @@ export function RegisterView(props: Props) {
 
 const isFiltered = (query: Record<string, string>) => Object.keys(query).some((k) => !["sort", "dir", "limit", "cursor"].includes(k));
 
-function Register({ siteId, siteName, unitSystem, options, canImport, canLog, canRequestPermit }: Props) {
+function Register({ siteId, siteName, unitSystem, options, canImport, canLog, canRequestPermit, canInspect }: Props) {
   const { query, cols, update, clear } = useRegisterUrl();
   const qs = new URLSearchParams(query).toString();
   const queryClient = useQueryClient();
@@ -194,6 +195,7 @@ function Register({ siteId, siteName, unitSystem, options, canImport, canLog, ca
             filterQs={filterQs}
             total={total}
             canRequestPermit={canRequestPermit}
+            canInspect={canInspect}
           />
         </div>
         <ColumnChooser shown={shownColumns} onChange={(next) => update({ cols: columnsParam(next) })} />

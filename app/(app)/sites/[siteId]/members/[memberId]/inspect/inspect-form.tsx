@@ -30,11 +30,14 @@ const emptyValues = (): FormIn => ({
   photoIds: [],
 });
 
-type Saved = { result: "pass" | "fail"; memberStatus: string; removedFromPermits: { label: string }[]; nextDueAt: string | null; queued?: boolean };
+type Saved = { result: "pass" | "fail"; memberStatus: string; removedFromPermits: { label: string }[]; nextDueAt: string | null; queued?: boolean; leaving?: boolean };
+
+/** The round's next member due, after this one (null when nothing else is due). */
+type NextDue = { memberId: string; tag: string } | null;
 
 export function InspectForm({
-  siteId, memberId, tag, plumbToleranceMm, intervalDays,
-}: { siteId: string; memberId: string; tag: string; plumbToleranceMm: number; intervalDays: number }) {
+  siteId, memberId, tag, status, plumbToleranceMm, intervalDays, next, roundQuery,
+}: { siteId: string; memberId: string; tag: string; status: string; plumbToleranceMm: number; intervalDays: number; next: NextDue; roundQuery: string }) {
   const router = useRouter();
   const draftKey = `strutwise:inspection-draft:${memberId}`;
   const [photos, setPhotos] = useState<UploadedPhoto[]>([]);
@@ -43,6 +46,7 @@ export function InspectForm({
   const [uploaderKey, setUploaderKey] = useState(0);
   const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState<Saved | null>(null);
+  const [allSaid, setAllSaid] = useState<string | null>(null);
   const queuedPhotos = useRef<QueuedFile[]>([]);
   const {
     register, handleSubmit, watch, reset, setValue, setError, formState: { errors, isSubmitting },
@@ -70,6 +74,34 @@ export function InspectForm({
     if (anyFailed && values.result !== "fail") setValue("result", "fail");
   }, [anyFailed, values.result, setValue]);
 
+  const roundHref = `/sites/${siteId}/inspections${roundQuery ? `?${roundQuery}` : ""}`;
+  /** The next member due on the round, with a word about the one just recorded; or the round, complete. */
+  function afterSaving(returned: boolean) {
+    const p = new URLSearchParams(roundQuery);
+    if (next) {
+      p.set("recorded", tag);
+      if (returned) p.set("returned", "1");
+      return `/sites/${siteId}/members/${next.memberId}/inspect?${p}`;
+    }
+    p.set("complete", tag);
+    return `/sites/${siteId}/inspections?${p}`;
+  }
+
+  /** "All satisfactory": every item passes, and so the member — except an item already marked failed, which stays failed (and still needs its note). */
+  function allSatisfactory() {
+    let kept = 0;
+    INSPECTION_CHECKS.forEach((_, i) => {
+      if (values.items?.[i]?.result === "fail") kept += 1;
+      else setValue(`items.${i}.result` as const, "pass", { shouldDirty: true });
+    });
+    if (!kept) setValue("result", "pass", { shouldDirty: true });
+    setAllSaid(
+      kept
+        ? `${INSPECTION_CHECKS.length - kept} items marked satisfactory; ${kept} failed item${kept === 1 ? " is" : "s are"} kept as failed and still need${kept === 1 ? "s" : ""} a note.`
+        : `All ${INSPECTION_CHECKS.length} items and the overall result marked satisfactory. Change any item that is not, then record the inspection.`,
+    );
+  }
+
   async function onSubmit(input: InspectionInput) {
     setFormError(null);
     // With no signal (or a request lost on a weak one) the inspection waits in the outbox and is sent once.
@@ -94,6 +126,13 @@ export function InspectForm({
       return;
     }
     draft.clear();
+    // A pass: straight on to the next member due (the round in three taps a member). A failure
+    // stays on this screen, which says what it did (out of service, permits, who was told).
+    if (input.result === "pass") {
+      setSaved({ result: input.result, memberStatus: r.data.member.status, removedFromPermits: [], nextDueAt: r.data.inspection.nextDueAt, leaving: true });
+      router.push(afterSaving(status === "out_of_service" && r.data.member.status !== "out_of_service"));
+      return;
+    }
     setSaved({ result: input.result, memberStatus: r.data.member.status, removedFromPermits: r.data.removedFromPermits, nextDueAt: r.data.inspection.nextDueAt });
     router.refresh();
   }
@@ -103,7 +142,21 @@ export function InspectForm({
       <section role="status" aria-live="polite" className="flex flex-col gap-3 rounded-xl border-2 border-warn bg-warn-soft p-4">
         <p className="text-lg font-bold">Inspection of {tag} saved on this phone — waiting to send</p>
         <p>No signal just now. It is kept on this phone and sent once when the connection returns; the member&apos;s status changes when the server has it.</p>
-        <ButtonLink href={`/sites/${siteId}/inspections`}>Back to the inspection round</ButtonLink>
+        <div className="flex flex-wrap gap-2">
+          {next ? <ButtonLink href={afterSaving(false)}>Next: {next.tag}</ButtonLink> : null}
+          <ButtonLink href={roundHref} variant={next ? "secondary" : "primary"}>Back to the inspection round</ButtonLink>
+        </div>
+      </section>
+    );
+  }
+
+  if (saved?.leaving) {
+    return (
+      <section role="status" aria-live="polite" className="flex flex-col gap-2 rounded-xl border-2 border-ok bg-ok-soft p-4">
+        <p className="flex items-center gap-2 text-lg font-bold text-ok">
+          <Icon name="ok" /> Recorded {tag} — {next ? `next: ${next.tag}` : "round complete"}
+        </p>
+        <p>{next ? `Opening the checklist for ${next.tag}…` : "Back to the round…"}</p>
       </section>
     );
   }
@@ -129,7 +182,8 @@ export function InspectForm({
           </p>
         )}
         <div className="flex flex-wrap gap-2">
-          <ButtonLink href={`/sites/${siteId}/inspections`}>Back to the inspection round</ButtonLink>
+          {next ? <ButtonLink href={afterSaving(false)}>Next due: {next.tag}</ButtonLink> : null}
+          <ButtonLink href={roundHref} variant={next ? "secondary" : "primary"}>Back to the inspection round</ButtonLink>
           <Button type="button" variant="secondary" onClick={() => { reset(emptyValues()); setPhotos([]); setUploaderKey((k) => k + 1); setSaved(null); }}>
             Record another inspection
           </Button>
@@ -149,6 +203,14 @@ export function InspectForm({
       ) : null}
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-2 text-lg font-bold">Checklist</legend>
+        <Button type="button" variant="secondary" onClick={allSatisfactory} className="w-full border-ok text-lg">
+          <Icon name="ok" /> All satisfactory
+        </Button>
+        {allSaid ? (
+          <p role="status" className="text-sm font-semibold">
+            {allSaid}
+          </p>
+        ) : null}
         {INSPECTION_CHECKS.map((c, i) => {
           const id = `item-${c.key}`;
           const err = itemErrors?.[i];
@@ -265,7 +327,7 @@ export function InspectForm({
       <Button type="submit" disabled={isSubmitting || photosBusy} className="w-full text-lg">
         {isSubmitting ? "Saving…" : photosBusy ? "Waiting for photos…" : "Record inspection"}
       </Button>
-      <Link href={`/sites/${siteId}/inspections`} className="text-center text-brand underline">
+      <Link href={roundHref} className="text-center text-brand underline">
         Back to the round
       </Link>
     </form>

@@ -9,31 +9,53 @@ import { formatWhen } from "@/lib/alerts/format";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { isUuid } from "@/lib/authz";
 import { checkLabel } from "@/lib/inspections/checklist";
-import { inspectionState } from "@/lib/inspections/due";
+import { inspectionState, NEEDS_DOING, orderRound } from "@/lib/inspections/due";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
 import { InspectionStateBadge, ResultBadge } from "../../../inspections/state-badge";
 import { InspectForm } from "./inspect-form";
 
 export const metadata: Metadata = { title: "Inspect member" };
 
-export default async function InspectPage({ params }: { params: Promise<{ siteId: string; memberId: string }> }) {
+export default async function InspectPage({
+  params, searchParams,
+}: { params: Promise<{ siteId: string; memberId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const { siteId, memberId } = await params;
+  const q = await searchParams;
   const { site, may } = await loadSitePage(siteId);
   if (!isUuid(memberId)) notFound();
   const member = await getMemberForInspection({ memberId, siteId: site.id });
   if (!member) notFound();
-  const [history, [round]] = await Promise.all([
+  // The round this checklist was opened from (its zone and scheme filter), for "next due" after saving.
+  const zoneId = typeof q.zone === "string" && isUuid(q.zone) ? q.zone : null;
+  const schemeId = typeof q.scheme === "string" && isUuid(q.scheme) ? q.scheme : null;
+  const roundParams = new URLSearchParams();
+  if (zoneId) roundParams.set("zone", zoneId);
+  if (schemeId) roundParams.set("scheme", schemeId);
+  const roundQuery = roundParams.toString();
+  const [history, [round], queue] = await Promise.all([
     listInspections({ memberId: member.id }),
     listInspectionRound({ siteIds: [site.id], statuses: [member.status] }).then((rows) => rows.filter((r) => r.memberId === member.id)),
+    listInspectionRound({ siteIds: [site.id], statuses: ["submitted", "loaded", "out_of_service"], zoneId, schemeId }),
   ]);
+  const now = new Date();
   const tz = site.timezone;
-  const state = round ? inspectionState(round, new Date(), site.inspectionIntervalDays) : null;
+  const state = round ? inspectionState(round, now, site.inspectionIntervalDays) : null;
+  const nextRow = orderRound(queue, now).find((r) => r.memberId !== member.id && NEEDS_DOING.includes(r.due.state));
+  const next = nextRow ? { memberId: nextRow.memberId, tag: nextRow.tag } : null;
+  // Arrived here from saving the previous member's checklist.
+  const recorded = typeof q.recorded === "string" ? q.recorded.slice(0, 40) : null;
 
   return (
     <div className="flex flex-col gap-4">
+      {recorded ? (
+        <p role="status" className="flex flex-wrap items-center gap-2 rounded-lg border-2 border-ok bg-ok-soft p-3 font-semibold" data-testid="recorded-next">
+          <Icon name="ok" /> Recorded {recorded} — next: {member.tag}
+          {q.returned === "1" ? <span className="w-full text-sm font-normal">{recorded} is back in service (submitted); it needs a new permit before it is loaded.</span> : null}
+        </p>
+      ) : null}
       <div>
         <p className="text-sm text-ink-soft">
-          <Link href={`/sites/${site.id}/inspections`} className="underline">
+          <Link href={`/sites/${site.id}/inspections${roundQuery ? `?${roundQuery}` : ""}`} className="underline">
             Inspections
           </Link>{" "}
           ›{" "}
@@ -60,7 +82,17 @@ export default async function InspectPage({ params }: { params: Promise<{ siteId
           This member has been struck; there is nothing to inspect.
         </p>
       ) : may("inspect") ? (
-        <InspectForm siteId={site.id} memberId={member.id} tag={member.tag} plumbToleranceMm={site.plumbToleranceMm} intervalDays={site.inspectionIntervalDays} />
+        <InspectForm
+          key={member.id}
+          siteId={site.id}
+          memberId={member.id}
+          tag={member.tag}
+          status={member.status}
+          plumbToleranceMm={site.plumbToleranceMm}
+          intervalDays={site.inspectionIntervalDays}
+          next={next}
+          roundQuery={roundQuery}
+        />
       ) : (
         <Forbidden what="Recording inspections is for site engineers, supervisors and coordinators." />
       )}
