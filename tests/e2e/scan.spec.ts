@@ -4,7 +4,7 @@
 import { expect, test, type Page } from "@playwright/test";
 import { mainNav, openSite, signIn } from "./helpers";
 import { WHARF } from "../support/demo";
-import { qrPath } from "../../lib/pdf/labels";
+import { qrPath } from "../../lib/pdf/qr";
 
 /** The page's alerts, leaving out the framework's route announcer (also role="alert"). */
 const alert = (page: Page) => page.getByRole("alert").and(page.locator(":not(#__next-route-announcer__)"));

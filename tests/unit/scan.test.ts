@@ -4,7 +4,8 @@
 import sharp from "sharp";
 import QRCode from "qrcode";
 import { describe, expect, it } from "vitest";
-import { memberUrl, qrPath } from "@/lib/pdf/labels";
+import { memberUrl } from "@/lib/pdf/labels";
+import { qrPath } from "@/lib/pdf/qr";
 import { decodeQr } from "@/lib/scan/decode";
 import { resolveScan } from "@/lib/scan/resolve";
 
