@@ -239,6 +239,11 @@ export const members = pgTable(
     utilisation: doublePrecision("utilisation"),
     checkPass: boolean("check_pass"),
     notes: text("notes"),
+    /**
+     * Lean from vertical (degrees) read at the latest inspection that recorded a plumb reading;
+     * the member is checked out of plumb at this angle until a later reading replaces it.
+     */
+    outOfPlumbDeg: doublePrecision("out_of_plumb_deg"),
     installedBy: uuid("installed_by").references(() => users.id),
     installedAt: timestamp("installed_at", { withTimezone: true }),
     createdBy: uuid("created_by").references(() => users.id),
@@ -325,6 +330,11 @@ export const inspections = pgTable(
     result: inspectionResult("result").notNull(),
     items: jsonb("items").$type<{ check: string; result: "pass" | "fail"; note?: string }[]>().notNull().default([]),
     notes: text("notes"),
+    /** Plumb reading: the angle from vertical used for the re-check (given, or worked out from the offset). */
+    plumbDeg: doublePrecision("plumb_deg"),
+    /** The reading as taken, when it was an offset: Δ (mm) over a height (mm; null = the member's length). */
+    plumbOffsetMm: doublePrecision("plumb_offset_mm"),
+    plumbOverMm: doublePrecision("plumb_over_mm"),
     inspectedAt: timestamp("inspected_at", { withTimezone: true }).notNull().defaultNow(),
     nextDueAt: timestamp("next_due_at", { withTimezone: true }),
     /** UUID made on the phone for this inspection: a retried request returns this one instead of a second. */

@@ -23,6 +23,7 @@ const memberColumns = {
   utilisation: members.utilisation,
   checkPass: members.checkPass,
   notes: members.notes,
+  outOfPlumbDeg: members.outOfPlumbDeg,
   installedBy: members.installedBy,
   installedAt: members.installedAt,
   createdBy: members.createdBy,

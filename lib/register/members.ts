@@ -373,7 +373,7 @@ export async function updateMember(args: {
     };
     let outcome: CheckOutcome | null = null;
     if (touched || ref.loadN !== before.loadN) {
-      outcome = runCheck(ref.type, { extensionMm: v.extensionMm, endConditions: v.endConditions, loadN: ref.loadN }, site);
+      outcome = runCheck(ref.type, { extensionMm: v.extensionMm, endConditions: v.endConditions, loadN: ref.loadN, outOfPlumbDeg: before.outOfPlumbDeg }, site);
       pass = outcome.pass;
     }
     if (patch.status !== undefined && patch.status !== before.status) {
@@ -424,7 +424,11 @@ export async function recheckMembersOfType(args: { user: SessionUser; memberType
   const mine = rows.filter((r) => r.siteOrganisationId === user.organisationId);
   if (mine.length === 0) return 0;
   const outcomes = mine.map((m) => {
-    const outcome = runCheck(type, { extensionMm: m.extensionMm, endConditions: m.endConditions, loadN: m.loadN }, { designCode: m.siteDesignCode, unitSystem: m.siteUnitSystem });
+    const outcome = runCheck(
+      type,
+      { extensionMm: m.extensionMm, endConditions: m.endConditions, loadN: m.loadN, outOfPlumbDeg: m.outOfPlumbDeg },
+      { designCode: m.siteDesignCode, unitSystem: m.siteUnitSystem },
+    );
     // Keep the slab working of the member's previous check out of it: the load itself is unchanged.
     return { m, outcome };
   });
@@ -448,4 +452,50 @@ export async function recheckMembersOfType(args: { user: SessionUser; memberType
   }));
   await recordAudits(audits, tx);
   return mine.length;
+}
+
+/**
+ * Re-checks one member inside the caller's transaction after something outside its own fields
+ * changed (an inspection's plumb reading): `values` are stored with the new check, the member's
+ * latest result is updated and one audit row says why. The caller holds the member's row lock.
+ */
+export async function recheckMember(args: {
+  user: SessionUser;
+  site: Pick<SiteForCheck, "id" | "organisationId" | "designCode" | "unitSystem">;
+  memberId: string;
+  values?: Partial<Pick<Member, "outOfPlumbDeg">>;
+  reason: string;
+  audit?: Record<string, unknown>;
+  tx: Tx;
+}): Promise<{ before: Member; after: Member; outcome: CheckOutcome; check: CheckView }> {
+  const { user, site, memberId, values = {}, reason, tx } = args;
+  const before = await getMemberForUpdate({ memberId }, tx);
+  if (!before) throw new NotFoundError("That member");
+  const type = await getMemberType({ organisationId: site.organisationId, memberTypeId: before.memberTypeId, includeArchived: true }, tx);
+  if (!type) throw new NotFoundError("That member's type");
+  const merged = { ...before, ...values };
+  const outcome = runCheck(
+    type,
+    { extensionMm: merged.extensionMm, endConditions: merged.endConditions, loadN: merged.loadN, outOfPlumbDeg: merged.outOfPlumbDeg },
+    site,
+  );
+  const row = await insertCheck({ memberId, reason, createdBy: user.id, ...checkRow(outcome, null) }, tx);
+  const after = await updateMemberRow(
+    { memberId, values: { ...values, latestCheckId: row.id, capacityN: row.capacityN, utilisation: row.utilisation, checkPass: row.pass } },
+    tx,
+  );
+  await recordAudit(
+    {
+      organisationId: site.organisationId,
+      siteId: site.id,
+      actorId: user.id,
+      action: "member.rechecked",
+      entityType: "member",
+      entityId: memberId,
+      before: { latestCheckId: before.latestCheckId, capacityN: before.capacityN, utilisation: before.utilisation, checkPass: before.checkPass, outOfPlumbDeg: before.outOfPlumbDeg },
+      after: { latestCheckId: row.id, capacityN: row.capacityN, utilisation: row.utilisation, checkPass: row.pass, outOfPlumbDeg: after.outOfPlumbDeg, reason, ...args.audit },
+    },
+    tx,
+  );
+  return { before, after, outcome, check: checkView(row) };
 }

@@ -1,6 +1,21 @@
 // Runs the engine for one member and returns what the register stores as its check.
 import { calculate, ENGINE_VERSION } from "@/lib/engineering";
-import { buildCheckRequest, type CheckMember, type CheckSite, type CheckType } from "./check-request";
+import { buildCheckRequest, isLeaning, LEAN_CHECKED_KINDS, type CheckMember, type CheckSite, type CheckType } from "./check-request";
+
+const KIND_WORDS: Record<CheckType["kind"], string> = {
+  "en1065-prop": "an EN 1065 prop",
+  "steel-section": "a steel member",
+  "supplier-table": "a member rated by its supplier's table",
+  "trench-strut": "a trench strut",
+  "timber-section": "a timber member",
+};
+
+/** A lean the engine cannot check for this kind is said, never dropped. */
+function leanWarning(type: CheckType, member: CheckMember): string | null {
+  if (!isLeaning(member) || LEAN_CHECKED_KINDS.includes(type.kind)) return null;
+  const how = member.outOfPlumbMm != null && member.outOfPlumbMm > 0 ? `${Math.round(member.outOfPlumbMm)} mm` : `${Number(member.outOfPlumbDeg!.toFixed(2))}°`;
+  return `Measured ${how} out of plumb: the out-of-plumb check covers EN 1065 props and steel sections only, so this capacity is for ${KIND_WORDS[type.kind]} standing plumb. Re-plumb it, or have a temporary works designer assess the lean.`;
+}
 
 export type CheckOutcome = {
   method: string;
@@ -41,6 +56,8 @@ export function runCheck(type: CheckType, member: CheckMember, site: CheckSite):
       engineVersion: ENGINE_VERSION,
     };
   }
+  const lean = leanWarning(type, member);
+  if (lean) result.warnings.push(lean);
   const capacityN = result.capacityN ?? null;
   const utilisation = result.utilisation ?? (capacityN === null ? null : (request.loadN as number) / capacityN);
   return {

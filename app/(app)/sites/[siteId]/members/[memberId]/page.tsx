@@ -31,7 +31,16 @@ const CHECK_REASONS: Record<string, string> = {
   logged: "When logged",
   edited: "After an edit",
   imported: "When imported",
+  "plumb reading": "After a plumb reading at an inspection",
 };
+
+/** An inspection's plumb reading in words: the angle used, and the offset as read. */
+function plumbText(i: { plumbDeg: number | null; plumbOffsetMm: number | null; plumbOverMm: number | null }, len: (mm: number) => string) {
+  if (i.plumbDeg == null) return null;
+  const deg = `${Number(i.plumbDeg.toFixed(2))}°`;
+  if (i.plumbOffsetMm == null) return `Plumb reading: ${deg} out of plumb.`;
+  return `Plumb reading: ${len(i.plumbOffsetMm)} over ${i.plumbOverMm == null ? "the member's length" : len(i.plumbOverMm)} (${deg} out of plumb).`;
+}
 
 function fmtStep(s: Step) {
   if (typeof s.value === "string") return s.value;
@@ -142,6 +151,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
             ["End conditions", endConditionInfo(member.endConditions).label],
             ["Working load", `${formatForce(member.loadN, forceUnit)}${member.loadSource === "slab" ? " (derived from the scheme's slab)" : ""}`],
             ["As-built spacing", member.spacingXMm != null && member.spacingYMm != null ? `${len(member.spacingXMm)} × ${len(member.spacingYMm)}` : "—"],
+            ["Out of plumb (latest reading)", member.outOfPlumbDeg == null ? "No reading: checked standing plumb" : `${Number(member.outOfPlumbDeg.toFixed(2))}° — checked at this lean`],
             ["Capacity", member.capacityN == null ? "—" : formatForce(member.capacityN, forceUnit)],
             ["Utilisation", formatUtilisation(member.utilisation)],
             ["Logged by", `${member.createdByName ?? "—"}, ${when(member.createdAt)}`],
@@ -169,6 +179,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
                   </span>
                   <span>{when(i.inspectedAt)}{i.inspectorName ? ` · ${i.inspectorName}` : ""}</span>
                 </p>
+                {plumbText(i, (mm) => len(mm)) ? <p className="text-sm" data-testid="inspection-plumb">{plumbText(i, (mm) => len(mm))}</p> : null}
                 {i.failedItems.length ? <p className="text-sm">Failed: {i.failedItems.join("; ")}</p> : null}
                 {i.notes ? <p className="text-sm text-ink-soft">Notes: {i.notes}</p> : null}
                 {i.nextDueAt ? <p className="text-sm text-ink-soft">Next due {when(i.nextDueAt)}</p> : null}

@@ -60,7 +60,7 @@ export default async function InspectPage({ params }: { params: Promise<{ siteId
           This member has been struck; there is nothing to inspect.
         </p>
       ) : may("inspect") ? (
-        <InspectForm siteId={site.id} memberId={member.id} tag={member.tag} plumbToleranceMm={site.plumbToleranceMm} intervalDays={site.inspectionIntervalDays} />
+        <InspectForm siteId={site.id} memberId={member.id} tag={member.tag} plumbToleranceMm={site.plumbToleranceMm} intervalDays={site.inspectionIntervalDays} unitSystem={site.unitSystem} />
       ) : (
         <Forbidden what="Recording inspections is for site engineers, supervisors and coordinators." />
       )}
