@@ -216,6 +216,22 @@ export const memberTypes = pgTable(
 );
 
 // ------------------------------------------------------------- the register
+/** A member's base, as the engine's base-bearing inputs (validated by memberBaseSchema). */
+export type MemberBase = {
+  basePlateBMm: number;
+  basePlateLMm: number;
+  solePlateBMm?: number;
+  solePlateLMm?: number;
+  solePlateTMm?: number;
+  allowablePressureKPa?: number;
+  soil?: "soft-clay" | "firm-clay" | "stiff-clay" | "loose-sand" | "medium-sand" | "dense-gravel" | "hardcore";
+  slabDepthMm?: number;
+  slabEffectiveDepthMm?: number;
+  fckMpa?: number;
+  rhoL?: number;
+  punchingCode?: "en1992" | "aci318";
+};
+
 export const members = pgTable(
   "members",
   {
@@ -244,6 +260,11 @@ export const members = pgTable(
      * the member is checked out of plumb at this angle until a later reading replaces it.
      */
     outOfPlumbDeg: doublePrecision("out_of_plumb_deg"),
+    /**
+     * What the member stands on (base plate, sole plate, ground or slab; SI: mm, kPa, MPa): when
+     * given, bearing under the base is checked with the member (lib/register/run-check.ts).
+     */
+    base: jsonb("base").$type<MemberBase>(),
     installedBy: uuid("installed_by").references(() => users.id),
     installedAt: timestamp("installed_at", { withTimezone: true }),
     createdBy: uuid("created_by").references(() => users.id),

@@ -24,6 +24,7 @@ const memberColumns = {
   checkPass: members.checkPass,
   notes: members.notes,
   outOfPlumbDeg: members.outOfPlumbDeg,
+  base: members.base,
   installedBy: members.installedBy,
   installedAt: members.installedAt,
   createdBy: members.createdBy,

@@ -1,6 +1,6 @@
 // Builds the engine request for a member from its type, its measured extension and its load,
 // and puts the member's working load on the same basis as the capacity it is compared with.
-import type { designCode, endCondition, memberTypeKind, unitSystem } from "@/db/schema";
+import type { designCode, endCondition, MemberBase, memberTypeKind, unitSystem } from "@/db/schema";
 
 type Kind = (typeof memberTypeKind.enumValues)[number];
 type DesignCode = (typeof designCode.enumValues)[number];
@@ -25,6 +25,8 @@ export type CheckMember = {
   outOfPlumbMm?: number | null;
   /** Measured lean from vertical in degrees (an inspection's plumb reading); used when outOfPlumbMm is not given. */
   outOfPlumbDeg?: number | null;
+  /** What the member stands on: when given, bearing under the base is checked with it. */
+  base?: MemberBase | null;
 };
 export type CheckSite = { designCode: DesignCode; unitSystem: Units };
 

@@ -22,7 +22,20 @@ import { MEMBER_STATUS_LABELS } from "@/lib/labels";
 import { CHECK_FIELDS, EDITABLE_STATUSES, memberPatchSchema, memberStateSchema, type MemberCreate, type MemberPatch } from "@/lib/validations/member";
 import { statusEditConflict } from "./member-lifecycle";
 import { deriveSlabLoad, type SlabLoadInfo } from "./slab-load";
-import { checkSnapshot, runCheck, type CheckOutcome } from "./run-check";
+import { bearingRequest, checkSnapshot, runCheck, type CheckOutcome } from "./run-check";
+import { calculate } from "@/lib/engineering";
+import type { MemberBase } from "@/db/schema";
+
+/** A base the engine cannot check (no ground or slab, a partial sole plate…) is a 422 under `base.<field>`; nothing is stored. */
+function assertBaseCheckable(base: MemberBase | null | undefined, site: SiteForCheck) {
+  if (!base) return;
+  const r = calculate(bearingRequest(base, 1000, site).request);
+  if (!r.ok) {
+    const fields: FieldErrors = {};
+    for (const e of r.errors) if (e.field !== "loadN") fields[`base.${e.field || "basePlateBMm"}`] ??= e.message;
+    if (Object.keys(fields).length) throw new ValidationError(fields);
+  }
+}
 
 export type { MemberView, SessionUser, Tx };
 
@@ -192,7 +205,8 @@ export async function createMember(args: {
     }
     if (Object.keys(errors).length) throw new ValidationError(errors);
 
-    const outcome = runCheck(ref.type, { extensionMm: input.extensionMm, endConditions: input.endConditions, loadN: ref.loadN }, site);
+    assertBaseCheckable(input.base, site);
+    const outcome = runCheck(ref.type, { extensionMm: input.extensionMm, endConditions: input.endConditions, loadN: ref.loadN, base: input.base ?? null }, site);
     if (input.submit && !outcome.pass) {
       throw new ValidationError({ submit: `${failingReason(outcome)} A failing member cannot be submitted; save it as a draft and correct it.` }, "A failing member cannot be submitted.");
     }
@@ -213,6 +227,7 @@ export async function createMember(args: {
           loadN: ref.loadN,
           status: input.submit ? "submitted" : "draft",
           notes: input.notes ?? null,
+          base: input.base ?? null,
           capacityN: outcome.capacityN,
           utilisation: outcome.utilisation,
           checkPass: outcome.pass,
@@ -339,6 +354,7 @@ export async function updateMember(args: {
       spacingXMm: patch.spacingXMm !== undefined ? patch.spacingXMm : before.spacingXMm,
       spacingYMm: patch.spacingYMm !== undefined ? patch.spacingYMm : before.spacingYMm,
       notes: patch.notes !== undefined ? patch.notes : before.notes,
+      base: patch.base !== undefined ? patch.base : before.base,
     };
     const state = memberStateSchema.safeParse(merged);
     if (!state.success) throw new ValidationError(fieldErrorsFromZod(state.error.issues));
@@ -370,10 +386,12 @@ export async function updateMember(args: {
       spacingXMm: v.spacingXMm ?? null,
       spacingYMm: v.spacingYMm ?? null,
       notes: v.notes ?? null,
+      base: v.base ?? null,
     };
+    assertBaseCheckable(v.base, site);
     let outcome: CheckOutcome | null = null;
     if (touched || ref.loadN !== before.loadN) {
-      outcome = runCheck(ref.type, { extensionMm: v.extensionMm, endConditions: v.endConditions, loadN: ref.loadN, outOfPlumbDeg: before.outOfPlumbDeg }, site);
+      outcome = runCheck(ref.type, { extensionMm: v.extensionMm, endConditions: v.endConditions, loadN: ref.loadN, outOfPlumbDeg: before.outOfPlumbDeg, base: v.base ?? null }, site);
       pass = outcome.pass;
     }
     if (patch.status !== undefined && patch.status !== before.status) {
@@ -426,7 +444,7 @@ export async function recheckMembersOfType(args: { user: SessionUser; memberType
   const outcomes = mine.map((m) => {
     const outcome = runCheck(
       type,
-      { extensionMm: m.extensionMm, endConditions: m.endConditions, loadN: m.loadN, outOfPlumbDeg: m.outOfPlumbDeg },
+      { extensionMm: m.extensionMm, endConditions: m.endConditions, loadN: m.loadN, outOfPlumbDeg: m.outOfPlumbDeg, base: m.base },
       { designCode: m.siteDesignCode, unitSystem: m.siteUnitSystem },
     );
     // Keep the slab working of the member's previous check out of it: the load itself is unchanged.
@@ -476,7 +494,7 @@ export async function recheckMember(args: {
   const merged = { ...before, ...values };
   const outcome = runCheck(
     type,
-    { extensionMm: merged.extensionMm, endConditions: merged.endConditions, loadN: merged.loadN, outOfPlumbDeg: merged.outOfPlumbDeg },
+    { extensionMm: merged.extensionMm, endConditions: merged.endConditions, loadN: merged.loadN, outOfPlumbDeg: merged.outOfPlumbDeg, base: merged.base },
     site,
   );
   const row = await insertCheck({ memberId, reason, createdBy: user.id, ...checkRow(outcome, null) }, tx);

@@ -1,0 +1,68 @@
+// A member can carry its base (base plate, sole plate, ground or slab): bearing is checked with the
+// member and failing bearing fails the member. Expected values from outside the project:
+// - BS 8004:1986 Table 1, firm clay 75–150 kPa: the lower value 75 kPa (common practice for a first
+//   check; value to be confirmed against the table).
+// - Uniform bearing pressure q = N/A (statics), with the load spread at 45° through a timber sole
+//   plate, A = (a + 2t)(b + 2t) within the plate (common practice).
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { eq } from "drizzle-orm";
+import { db, sql } from "@/db";
+import { members } from "@/db/schema";
+import { type AlertsOrg, makeAlertsOrg, removeAlertsOrgs } from "../support/fixtures";
+import { signInAs, type Client } from "../support/http";
+import { drainOutbox } from "../support/outbox-drain";
+
+afterAll(async () => {
+  await drainOutbox("member-base-cleanup");
+  await removeAlertsOrgs();
+  await sql.end({ timeout: 5 });
+});
+
+let fx: AlertsOrg;
+let engineer: Client;
+beforeAll(async () => {
+  fx = await makeAlertsOrg({ label: "base" });
+  engineer = await signInAs(fx.people.engineer.email);
+});
+
+type Created = { member: { id: string; checkPass: boolean; utilisation: number }; error?: { fields?: Record<string, string> } };
+const log = (tag: string, base: unknown) =>
+  engineer.json<Created>(`/api/v1/sites/${fx.site.id}/members`, {
+    method: "POST",
+    body: { tag, memberTypeId: fx.types.strong.id, extensionMm: 2000, loadN: 25_000, base },
+  });
+
+describe("bearing under a member's base is part of its check", () => {
+  it("a 150 × 150 mm plate straight on firm clay fails the member; a 225 × 1000 × 75 mm sole plate spreads it and it passes", async () => {
+    // q = 25 000 N / 22 500 mm² = 1111 kPa against 75 kPa: utilisation 14.8.
+    const bare = await log("BASE-BARE", { basePlateBMm: 150, basePlateLMm: 150, soil: "firm-clay" });
+    expect(bare.status).toBe(201);
+    expect(bare.body.member.checkPass).toBe(false);
+    expect(bare.body.member.utilisation).toBeCloseTo(25_000 / 22_500 / 0.075, 3);
+    // Sole plate: a' = min(225, 150 + 150) = 225, b' = min(1000, 300) = 300 → A = 67 500 mm²; q = 370 kPa, still over 75.
+    // With a typed allowable pressure of 400 kPa (e.g. from a plate test): 370/400 = 0.926, passes.
+    const spread = await log("BASE-SOLE", { basePlateBMm: 150, basePlateLMm: 150, solePlateBMm: 225, solePlateLMm: 1000, solePlateTMm: 75, allowablePressureKPa: 400 });
+    expect(spread.status).toBe(201);
+    expect(spread.body.member.checkPass).toBe(true);
+    expect(spread.body.member.utilisation).toBeCloseTo(25_000 / 67_500 / 0.4, 3);
+    const [row] = await db.select().from(members).where(eq(members.id, spread.body.member.id));
+    expect(row!.base).toMatchObject({ solePlateTMm: 75, allowablePressureKPa: 400 });
+  });
+
+  it("a base the check cannot use is a 422 naming the field, and nothing is stored", async () => {
+    const cases: [unknown, string, RegExp][] = [
+      [{ basePlateBMm: 150, basePlateLMm: 150 }, "base.allowablePressureKPa", /allowable bearing pressure in kPa/],
+      [{ basePlateBMm: -1, basePlateLMm: 150, soil: "firm-clay" }, "base.basePlateBMm", /greater than zero/],
+      [{ basePlateBMm: 150, basePlateLMm: 150, soil: "peat" }, "base.soil", /Ground type must be one of/],
+      [{ basePlateBMm: 150, basePlateLMm: 150, solePlateBMm: 225, soil: "firm-clay" }, "base.solePlateLMm", /sole plate's length/],
+      [{ basePlateBMm: 150, basePlateLMm: 150, slabDepthMm: 200 }, "base.fckMpa", /strength of the slab's concrete/],
+    ];
+    for (const [base, field, reason] of cases) {
+      const r = await log(`BASE-BAD-${field.length}-${Math.random().toString(36).slice(2, 6)}`, base);
+      expect(r.status, JSON.stringify(base)).toBe(422);
+      expect(r.body.error!.fields![field], JSON.stringify(base)).toMatch(reason);
+    }
+    const stored = await db.select().from(members).where(eq(members.siteId, fx.site.id));
+    expect(stored.filter((m) => m.tag.startsWith("BASE-BAD"))).toHaveLength(0);
+  });
+});
