@@ -23,7 +23,7 @@ import { CHECK_FIELDS, EDITABLE_STATUSES, memberPatchSchema, memberStateSchema, 
 import { statusEditConflict } from "./member-lifecycle";
 import { deriveSlabLoad, type SlabLoadInfo } from "./slab-load";
 import { bearingRequest, checkSnapshot, runCheck, type CheckOutcome } from "./run-check";
-import { calculate } from "@/lib/engineering";
+import { calculate, type Step } from "@/lib/engineering";
 import type { MemberBase } from "@/db/schema";
 
 /** A base the engine cannot check (no ground or slab, a partial sole plate…) is a 422 under `base.<field>`; nothing is stored. */
@@ -53,9 +53,38 @@ export type CheckView = {
   loadBasis: string | null;
   warnings: string[];
   errors?: { field: string; message: string }[];
+  /** Bearing under the member's base, when the member carries one: its own pass, utilisation and working. */
+  bearing?: BearingView;
   engineVersion: string;
   createdAt: Date;
 };
+
+type BearingView = {
+  pass: boolean;
+  utilisation: number | null;
+  /** Load the bearing check used (working load on the ground, design load on a slab), N, and its factor. */
+  loadN: number | null;
+  loadFactor: number;
+  steps: Step[];
+  warnings: string[];
+  errors?: { field: string; message: string }[];
+};
+
+/** The stored bearing check of a snapshot, for the screen and the API. */
+function bearingView(result: Record<string, unknown>, inputs: Record<string, unknown>): BearingView | undefined {
+  const b = result.bearing as { ok?: boolean; pass?: boolean; utilisation?: number; steps?: Step[]; warnings?: string[]; errors?: { field: string; message: string }[] } | undefined;
+  if (!b) return undefined;
+  const base = inputs.base as { loadN?: number; loadFactor?: number } | undefined;
+  return {
+    pass: b.ok !== false && b.pass === true,
+    utilisation: b.utilisation ?? null,
+    loadN: typeof base?.loadN === "number" ? base.loadN : null,
+    loadFactor: Number(base?.loadFactor ?? 1),
+    steps: b.steps ?? [],
+    warnings: b.warnings ?? [],
+    ...(b.ok === false ? { errors: b.errors ?? [] } : {}),
+  };
+}
 
 export type SiteForCheck = { id: string; organisationId: string; designCode: "en1993" | "aisc360-lrfd" | "aisc360-asd"; unitSystem: "si" | "us" };
 
@@ -73,6 +102,7 @@ export function checkView(row: {
   const result = row.result as { ok?: boolean; warnings?: string[]; errors?: { field: string; message: string }[]; loadBasis?: string; basis?: string };
   const inputs = row.inputs as { basis?: string; loadFactor?: number; loadFactorSource?: string; slabLoad?: { warnings?: string[] } };
   const warnings = [...(result.warnings ?? []), ...(inputs.slabLoad?.warnings ?? [])];
+  const bearing = bearingView(row.result, row.inputs);
   return {
     id: row.id,
     capacityN: row.capacityN,
@@ -85,6 +115,7 @@ export function checkView(row: {
     loadBasis: result.loadBasis ?? null,
     warnings,
     ...(result.ok === false ? { errors: result.errors ?? [] } : {}),
+    ...(bearing ? { bearing } : {}),
     engineVersion: row.engineVersion,
     createdAt: row.createdAt,
   };
@@ -94,6 +125,11 @@ export function checkView(row: {
 export function failingReason(outcome: { capacityN: number | null; utilisation: number | null; result: Record<string, unknown> }): string {
   const r = outcome.result as { ok?: boolean; errors?: { message: string }[] };
   if (r.ok === false) return `The capacity check could not be completed: ${(r.errors ?? []).map((e) => e.message).join(" ") || "the engine refused the inputs."}`;
+  const b = (outcome.result as { bearing?: { ok?: boolean; pass?: boolean; utilisation?: number } }).bearing;
+  if (b && (b.ok === false || b.pass !== true)) {
+    const bp = b.utilisation == null ? "?" : Math.round(b.utilisation * 100);
+    return `The ground or slab under the member's base fails its bearing check (utilisation ${bp} %, over 100 %): spread the load with a larger sole plate or check the ground.`;
+  }
   const pct = outcome.utilisation == null ? "?" : Math.round(outcome.utilisation * 100);
   return `The member fails its capacity check (utilisation ${pct} %, over 100 %).`;
 }

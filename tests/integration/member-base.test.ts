@@ -49,6 +49,38 @@ describe("bearing under a member's base is part of its check", () => {
     expect(row!.base).toMatchObject({ solePlateTMm: 75, allowablePressureKPa: 400 });
   });
 
+  it("the member record (API and page) carries the bearing working; a back-prop on a slab is checked for punching at the design load", async () => {
+    // EN 1992-1-1 §6.4 by hand, no ρl given so v_min governs the resistance:
+    // d = 160 mm, k = 1 + √(200/160) = 2.118 → 2.0 (6.47 cap); v_min = 0.035·2^1.5·√30 = 0.5422 MPa (6.3N).
+    // N_Ed = 1.5 × 25 kN = 37.5 kN (EN 1990 Table A1.2(B)); u1 = 2(150 + 150) + 4π·160 = 2610.6 mm (Fig. 6.13);
+    // v_Ed = 37 500/(2610.6 × 160) = 0.0898 MPa (6.38, β = 1); v_Ed/v_Rd,c = 0.166.
+    const slab = await log("BASE-SLAB", { basePlateBMm: 150, basePlateLMm: 150, slabEffectiveDepthMm: 160, fckMpa: 30, punchingCode: "en1992" });
+    expect(slab.status).toBe(201);
+    const detail = await engineer.json<{ check: { bearing?: { pass: boolean; utilisation: number; loadN: number; loadFactor: number; steps: { symbol: string; value: number }[] } } }>(
+      `/api/v1/members/${slab.body.member.id}`,
+    );
+    expect(detail.status).toBe(200);
+    const b = detail.body.check.bearing!;
+    expect(b.pass).toBe(true);
+    expect(b.loadFactor).toBe(1.5);
+    expect(b.loadN).toBeCloseTo(37_500, 6);
+    const vMin = 0.035 * 2 ** 1.5 * Math.sqrt(30);
+    const vEd = 37_500 / ((2 * 300 + 4 * Math.PI * 160) * 160);
+    expect(b.utilisation).toBeCloseTo(vEd / vMin, 3);
+    expect(b.steps.find((s) => s.symbol === "u1")!.value).toBeCloseTo(2 * 300 + 4 * Math.PI * 160, 3);
+
+    // The failing plate on firm clay: the record says the bearing fails and why the member fails.
+    const bare = await log("BASE-BARE-2", { basePlateBMm: 150, basePlateLMm: 150, soil: "firm-clay" });
+    const bareDetail = await engineer.json<{ check: { pass: boolean; bearing?: { pass: boolean; steps: { symbol: string }[] } } }>(`/api/v1/members/${bare.body.member.id}`);
+    expect(bareDetail.body.check.pass).toBe(false);
+    expect(bareDetail.body.check.bearing!.pass).toBe(false);
+    expect(bareDetail.body.check.bearing!.steps.map((s) => s.symbol)).toEqual(expect.arrayContaining(["A", "q", "q_a"]));
+    const page = await engineer.fetch(`/sites/${fx.site.id}/members/${bare.body.member.id}`);
+    const html = await page.text();
+    expect(html).toContain("Bearing under the base");
+    expect(html).toContain("Base plate 150 mm × 150 mm, on firm clay (75 kPa allowable");
+  });
+
   it("a base the check cannot use is a 422 naming the field, and nothing is stored", async () => {
     const cases: [unknown, string, RegExp][] = [
       [{ basePlateBMm: 150, basePlateLMm: 150 }, "base.allowablePressureKPa", /allowable bearing pressure in kPa/],
