@@ -81,6 +81,32 @@ describe("bearing under a member's base is part of its check", () => {
     expect(html).toContain("Base plate 150 mm × 150 mm, on firm clay (75 kPa allowable");
   });
 
+  it("a failing bearing blocks submitting, and editing the base re-checks the member", async () => {
+    // Same plate on firm clay as above: q/q_a = 14.8 (BS 8004:1986 Table 1 lower value, common practice).
+    const refused = await engineer.json<Created>(`/api/v1/sites/${fx.site.id}/members`, {
+      method: "POST",
+      body: { tag: "BASE-SUBMIT", memberTypeId: fx.types.strong.id, extensionMm: 2000, loadN: 25_000, submit: true, base: { basePlateBMm: 150, basePlateLMm: 150, soil: "firm-clay" } },
+    });
+    expect(refused.status).toBe(422);
+    expect(refused.body.error!.fields!.submit).toMatch(/bearing check/);
+
+    const draft = await log("BASE-EDIT", { basePlateBMm: 150, basePlateLMm: 150, soil: "firm-clay" });
+    expect(draft.body.member.checkPass).toBe(false);
+    // A 225 × 1000 × 75 mm sole plate on a typed 400 kPa: 25 000/67 500 mm² = 370 kPa → 0.926 (45° spread, common practice).
+    const edited = await engineer.json<{ member: { checkPass: boolean; utilisation: number }; check: { bearing?: { utilisation: number } } }>(`/api/v1/members/${draft.body.member.id}`, {
+      method: "PATCH",
+      body: { base: { basePlateBMm: 150, basePlateLMm: 150, solePlateBMm: 225, solePlateLMm: 1000, solePlateTMm: 75, allowablePressureKPa: 400 } },
+    });
+    expect(edited.status).toBe(200);
+    expect(edited.body.check.bearing!.utilisation).toBeCloseTo(25_000 / 67_500 / 0.4, 3);
+    // A partial sole plate is refused and the stored base is unchanged.
+    const bad = await engineer.json<Created>(`/api/v1/members/${draft.body.member.id}`, { method: "PATCH", body: { base: { basePlateBMm: 150, basePlateLMm: 150, solePlateBMm: 225, soil: "firm-clay" } } });
+    expect(bad.status).toBe(422);
+    expect(bad.body.error!.fields!["base.solePlateLMm"]).toMatch(/sole plate's length/);
+    const [row] = await db.select().from(members).where(eq(members.id, draft.body.member.id));
+    expect(row!.base).toMatchObject({ solePlateTMm: 75, allowablePressureKPa: 400 });
+  });
+
   it("a base the check cannot use is a 422 naming the field, and nothing is stored", async () => {
     const cases: [unknown, string, RegExp][] = [
       [{ basePlateBMm: 150, basePlateLMm: 150 }, "base.allowablePressureKPa", /allowable bearing pressure in kPa/],
