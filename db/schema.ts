@@ -229,6 +229,22 @@ export const memberTypes = pgTable(
 );
 
 // ------------------------------------------------------------- the register
+/** A member's base, as the engine's base-bearing inputs (validated by memberBaseSchema). */
+export type MemberBase = {
+  basePlateBMm: number;
+  basePlateLMm: number;
+  solePlateBMm?: number;
+  solePlateLMm?: number;
+  solePlateTMm?: number;
+  allowablePressureKPa?: number;
+  soil?: "soft-clay" | "firm-clay" | "stiff-clay" | "loose-sand" | "medium-sand" | "dense-gravel" | "hardcore";
+  slabDepthMm?: number;
+  slabEffectiveDepthMm?: number;
+  fckMpa?: number;
+  rhoL?: number;
+  punchingCode?: "en1992" | "aci318";
+};
+
 export const members = pgTable(
   "members",
   {
@@ -255,6 +271,16 @@ export const members = pgTable(
     planX: doublePrecision("plan_x"),
     planY: doublePrecision("plan_y"),
     notes: text("notes"),
+    /**
+     * Lean from vertical (degrees) read at the latest inspection that recorded a plumb reading;
+     * the member is checked out of plumb at this angle until a later reading replaces it.
+     */
+    outOfPlumbDeg: doublePrecision("out_of_plumb_deg"),
+    /**
+     * What the member stands on (base plate, sole plate, ground or slab; SI: mm, kPa, MPa): when
+     * given, bearing under the base is checked with the member (lib/register/run-check.ts).
+     */
+    base: jsonb("base").$type<MemberBase>(),
     installedBy: uuid("installed_by").references(() => users.id),
     installedAt: timestamp("installed_at", { withTimezone: true }),
     createdBy: uuid("created_by").references(() => users.id),
@@ -365,6 +391,11 @@ export const inspections = pgTable(
     result: inspectionResult("result").notNull(),
     items: jsonb("items").$type<{ check: string; result: "pass" | "fail"; note?: string }[]>().notNull().default([]),
     notes: text("notes"),
+    /** Plumb reading: the angle from vertical used for the re-check (given, or worked out from the offset). */
+    plumbDeg: doublePrecision("plumb_deg"),
+    /** The reading as taken, when it was an offset: Δ (mm) over a height (mm; null = the member's length). */
+    plumbOffsetMm: doublePrecision("plumb_offset_mm"),
+    plumbOverMm: doublePrecision("plumb_over_mm"),
     inspectedAt: timestamp("inspected_at", { withTimezone: true }).notNull().defaultNow(),
     nextDueAt: timestamp("next_due_at", { withTimezone: true }),
     /** UUID made on the phone for this inspection: a retried request returns this one instead of a second. */

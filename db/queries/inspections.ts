@@ -18,7 +18,10 @@ export async function lockMemberForInspection({ memberId }: { memberId: string }
       tag: members.tag,
       status: members.status,
       checkPass: members.checkPass,
+      extensionMm: members.extensionMm,
       organisationId: sites.organisationId,
+      designCode: sites.designCode,
+      unitSystem: sites.unitSystem,
       siteName: sites.name,
       inspectionIntervalDays: sites.inspectionIntervalDays,
     })
@@ -51,6 +54,9 @@ export async function getInspectionByClientId({ memberId, clientId }: { memberId
       notes: inspections.notes,
       inspectedAt: inspections.inspectedAt,
       nextDueAt: inspections.nextDueAt,
+      plumbDeg: inspections.plumbDeg,
+      plumbOffsetMm: inspections.plumbOffsetMm,
+      plumbOverMm: inspections.plumbOverMm,
       inspectorName: users.name,
     })
     .from(inspections)
@@ -114,6 +120,9 @@ export async function listInspections({ memberId }: { memberId: string }, tx: Db
       notes: inspections.notes,
       inspectedAt: inspections.inspectedAt,
       nextDueAt: inspections.nextDueAt,
+      plumbDeg: inspections.plumbDeg,
+      plumbOffsetMm: inspections.plumbOffsetMm,
+      plumbOverMm: inspections.plumbOverMm,
       inspectorName: users.name,
     })
     .from(inspections)

@@ -25,6 +25,8 @@ const memberColumns = {
   planX: members.planX,
   planY: members.planY,
   notes: members.notes,
+  outOfPlumbDeg: members.outOfPlumbDeg,
+  base: members.base,
   installedBy: members.installedBy,
   installedAt: members.installedAt,
   createdBy: members.createdBy,

@@ -15,16 +15,17 @@ export type ScanScope = { now?: Date; siteIds?: string[] | null };
 
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
-/** Members whose latest check fails: alert once per check (a new failing check alerts again). */
-export async function sweepOverloads({ now = new Date(), siteIds = null }: ScanScope = {}) {
-  const rows = await findUnalertedOverloads({ siteIds });
-  if (rows.length === 0) return 0;
-  const candidates: AlertCandidate[] = rows.map((m) => ({
+/** The overload alert for a member whose latest check fails (one per check: the check is the threshold). */
+export function overloadCandidate(
+  m: { siteId: string; memberId: string; tag: string; checkId: string; utilisation: number | null; capacityN: number | null; loadN: number; extensionMm: number },
+  now: Date,
+): AlertCandidate {
+  return {
     siteId: m.siteId,
     kind: "member_overloaded",
     subjectType: "member",
     subjectId: m.memberId,
-    threshold: m.checkId!,
+    threshold: m.checkId,
     title: `${m.tag} is overloaded: utilisation ${formatPercent(m.utilisation)}`,
     body:
       m.capacityN == null
@@ -32,7 +33,14 @@ export async function sweepOverloads({ now = new Date(), siteIds = null }: ScanS
         : `${m.tag} carries ${formatKn(m.loadN)} at an extension of ${Math.round(m.extensionMm)} mm, against a capacity of ${formatKn(m.capacityN)} (utilisation ${formatPercent(m.utilisation)}). Do not load it further; the temporary works coordinator should review it now.`,
     link: `/sites/${m.siteId}/members/${m.memberId}`,
     createdAt: now,
-  }));
+  };
+}
+
+/** Members whose latest check fails: alert once per check (a new failing check alerts again). */
+export async function sweepOverloads({ now = new Date(), siteIds = null }: ScanScope = {}) {
+  const rows = await findUnalertedOverloads({ siteIds });
+  if (rows.length === 0) return 0;
+  const candidates = rows.map((m) => overloadCandidate({ ...m, checkId: m.checkId! }, now));
   const r = await transaction((tx) => raiseAlerts(candidates, tx));
   return r.raised.length;
 }

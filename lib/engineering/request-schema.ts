@@ -7,6 +7,7 @@
 import { z } from "zod";
 import { END_CONDITION_IDS } from "./effective-length";
 import { fmt } from "./steps";
+import { SOIL_IDS } from "./soils";
 import { ALL_METHOD_IDS, CHECK_METHOD_IDS, METHOD_IDS, type CalculationRequest, type FieldError, type Section, type TableRow } from "./types";
 
 /** Words for what arrived, e.g. `the text "12"`, so the message says why it was refused. */
@@ -207,7 +208,7 @@ const FLAT_SCHEMA = z.object({
   solePlateLMm: N.plateMm("Sole plate length").optional(),
   solePlateTMm: N.plateMm("Sole plate thickness").optional(),
   allowablePressureKPa: N.allowablePressureKPa.optional(),
-  soil: enumSchema(["soft-clay", "firm-clay", "stiff-clay", "loose-sand", "medium-sand", "dense-gravel", "hardcore"], "Ground type").optional(),
+  soil: enumSchema(SOIL_IDS, "Ground type").optional(),
   slabDepthMm: N.slabDepthMm.optional(),
   slabEffectiveDepthMm: N.slabEffectiveDepthMm.optional(),
   fckMpa: N.fckMpa.optional(),

@@ -1,3 +1,4 @@
+import type { SOIL_IDS } from "./soils";
 // Shared shapes of the engine's contract. Units inside the engine are always
 // N, mm and MPa (N/mm²); conversions live in lib/units.ts at the edges.
 
@@ -201,7 +202,7 @@ export interface CalculationRequest {
 
 export type HssWeld = "erw" | "saw";
 export type SupplierInterpolation = "inverse-square" | "lower-row";
-export type SoilId = "soft-clay" | "firm-clay" | "stiff-clay" | "loose-sand" | "medium-sand" | "dense-gravel" | "hardcore";
+export type SoilId = (typeof SOIL_IDS)[number];
 
 /** What a method computes before the common envelope (version, utilisation) is added. */
 export type MethodOutput = Omit<CalculationSuccess, "ok" | "method" | "engineVersion" | "utilisation" | "pass" | "loadN"> & {

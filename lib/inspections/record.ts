@@ -14,6 +14,8 @@ import { enqueueEmails } from "@/db/queries/outbox";
 import { renderPermitMemberRemoved } from "@/emails/alert-permit-member-removed";
 import { formatWhen, permitLabel } from "@/lib/alerts/format";
 import { raiseAlerts } from "@/lib/alerts/raise";
+import { overloadCandidate } from "@/lib/alerts/scans";
+import { failingReason, recheckMember, type CheckView } from "@/lib/register/members";
 import { closeLoadPermitsLeftEmpty } from "@/lib/permits/auto-close";
 import type { SessionUser } from "@/lib/auth";
 import { env } from "@/lib/env";
@@ -47,6 +49,7 @@ export async function recordInspection(args: { user: SessionUser; member: { id: 
           inspection: { ...rest, inspectorName: inspectorName ?? user.name },
           member: { id: memberId, tag: member.tag, status: member.status },
           removedFromPermits: [] as { id: string; label: string }[],
+          recheck: null,
         };
       }
     }
@@ -61,17 +64,52 @@ export async function recordInspection(args: { user: SessionUser; member: { id: 
     }
 
     const previous = await getLatestInspection({ memberId }, tx);
-    const items = (input.items ?? []).map((i) => ({ check: i.check, result: i.result, ...(i.note ? { note: i.note } : {}) }));
+    let items = (input.items ?? []).map((i) => ({ check: i.check, result: i.result, ...(i.note ? { note: i.note } : {}) }));
+    let result = input.result;
+
+    // A plumb reading re-checks the member out of plumb at that angle (it stands until a later reading).
+    const plumbDeg = plumbAngle(input, member.extensionMm);
+    let recheck: { check: CheckView; outOfPlumbDeg: number } | null = null;
+    if (plumbDeg !== null) {
+      const site = { id: member.siteId, organisationId: member.organisationId, designCode: member.designCode, unitSystem: member.unitSystem };
+      const r = await recheckMember({ user, site, memberId, values: { outOfPlumbDeg: plumbDeg }, reason: "plumb reading", audit: { plumbDeg }, tx });
+      recheck = { check: r.check, outOfPlumbDeg: plumbDeg };
+      member.checkPass = r.outcome.pass;
+      if (!r.outcome.pass) {
+        // The member is not fit to carry its load as it stands: the inspection fails, on its plumb item.
+        const why = `Re-checked ${fmtDeg(plumbDeg)}° out of plumb: ${failingReason(r.outcome).replace(/^The member fails/, "it fails")}`;
+        const own = items.find((i) => i.check === "plumb");
+        const note = own?.note && own.result === "fail" ? `${own.note}. ${why}` : why;
+        items = [...items.filter((i) => i.check !== "plumb"), { check: "plumb", result: "fail" as const, note: note.slice(0, 500) }];
+        result = "fail";
+        await raiseAlerts(
+          [
+            (() => {
+              const c = overloadCandidate(
+                { siteId: member.siteId, memberId, tag: member.tag, checkId: r.check.id, utilisation: r.outcome.utilisation, capacityN: r.outcome.capacityN, loadN: r.after.loadN, extensionMm: r.after.extensionMm },
+                now,
+              );
+              return { ...c, body: `${c.body} It was found ${fmtDeg(plumbDeg)}° out of plumb at an inspection by ${user.name}.` };
+            })(),
+          ],
+          tx,
+        );
+      }
+    }
+
     const inspection = await insertInspection(
       {
         siteId: member.siteId,
         memberId,
         inspectorId: user.id,
-        result: input.result,
+        result,
+        plumbDeg,
+        plumbOffsetMm: input.plumbOffsetMm ?? null,
+        plumbOverMm: input.plumbOverMm ?? null,
         items,
         notes: input.notes || null,
         inspectedAt: now,
-        nextDueAt: input.result === "pass" ? nextDueFrom(now, member.inspectionIntervalDays) : null,
+        nextDueAt: result === "pass" ? nextDueFrom(now, member.inspectionIntervalDays) : null,
         clientId: input.clientId ?? null,
       },
       tx,
@@ -79,13 +117,13 @@ export async function recordInspection(args: { user: SessionUser; member: { id: 
     await attachInspectionPhotos({ memberId, inspectionId: inspection.id, photoIds }, tx);
     const audit = { organisationId: member.organisationId, siteId: member.siteId, actorId: user.id };
     await recordAudit(
-      { ...audit, action: "inspection.recorded", entityType: "inspection", entityId: inspection.id, after: { memberId, tag: member.tag, result: input.result, items, notes: input.notes ?? null, photoIds } },
+      { ...audit, action: "inspection.recorded", entityType: "inspection", entityId: inspection.id, after: { memberId, tag: member.tag, result, items, notes: input.notes ?? null, photoIds, ...(plumbDeg !== null ? { plumbDeg, recheckPass: recheck?.check.pass } : {}) } },
       tx,
     );
 
     let status = member.status;
     const removedFromPermits: { id: string; label: string }[] = [];
-    if (input.result === "fail") {
+    if (result === "fail") {
       if (member.status !== "out_of_service") {
         await setMemberStatusForInspection({ memberId, status: "out_of_service" }, tx);
         await recordAudit(
@@ -184,11 +222,34 @@ export async function recordInspection(args: { user: SessionUser; member: { id: 
         notes: inspection.notes,
         inspectedAt: inspection.inspectedAt,
         nextDueAt: inspection.nextDueAt,
+        plumbDeg: inspection.plumbDeg,
+        plumbOffsetMm: inspection.plumbOffsetMm,
+        plumbOverMm: inspection.plumbOverMm,
         inspectorName: user.name,
         photoIds,
       },
       member: { id: memberId, tag: member.tag, status },
       removedFromPermits,
+      /** The re-check a plumb reading made (null without a reading). */
+      recheck,
     };
   });
+}
+
+const fmtDeg = (deg: number) => Number(deg.toFixed(2)).toString();
+
+/**
+ * The lean from vertical (degrees) a plumb reading gives, or null without one. An angle is taken as
+ * read; an offset Δ over a measured height h gives θ = atan(Δ/h) (a level held vertical); an offset
+ * of the head over the base with no height gives θ = asin(Δ/L) over the member's length L.
+ */
+function plumbAngle(input: InspectionInput, lengthMm: number): number | null {
+  if (input.plumbDeg !== undefined) return input.plumbDeg;
+  if (input.plumbOffsetMm === undefined) return null;
+  const d = input.plumbOffsetMm;
+  if (input.plumbOverMm !== undefined) return (Math.atan(d / input.plumbOverMm) * 180) / Math.PI;
+  if (d >= lengthMm) {
+    throw new ValidationError({ plumbOffsetMm: `An offset of ${Math.round(d)} mm cannot be as large as the member's length of ${Math.round(lengthMm)} mm; check the reading, or give the height it was measured over.` });
+  }
+  return (Math.asin(d / lengthMm) * 180) / Math.PI;
 }

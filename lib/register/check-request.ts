@@ -1,6 +1,6 @@
 // Builds the engine request for a member from its type, its measured extension and its load,
 // and puts the member's working load on the same basis as the capacity it is compared with.
-import type { designCode, endCondition, memberTypeKind, unitSystem } from "@/db/schema";
+import type { designCode, endCondition, MemberBase, memberTypeKind, unitSystem } from "@/db/schema";
 
 type Kind = (typeof memberTypeKind.enumValues)[number];
 type DesignCode = (typeof designCode.enumValues)[number];
@@ -23,6 +23,10 @@ export type CheckMember = {
    * (engine method "out-of-plumb") instead of by their plain capacity.
    */
   outOfPlumbMm?: number | null;
+  /** Measured lean from vertical in degrees (an inspection's plumb reading); used when outOfPlumbMm is not given. */
+  outOfPlumbDeg?: number | null;
+  /** What the member stands on: when given, bearing under the base is checked with it. */
+  base?: MemberBase | null;
 };
 export type CheckSite = { designCode: DesignCode; unitSystem: Units };
 
@@ -43,8 +47,16 @@ export const LOAD_FACTORS = {
 
 export type Basis = keyof typeof LOAD_FACTORS;
 
-export function methodFor(type: CheckType, site: CheckSite, member?: Pick<CheckMember, "outOfPlumbMm">): { method: string; basis: Basis } {
-  const leaning = member?.outOfPlumbMm != null && member.outOfPlumbMm > 0;
+/** Whether the member stands out of plumb by a measured amount (an offset or an angle above zero). */
+export function isLeaning(member?: Pick<CheckMember, "outOfPlumbMm" | "outOfPlumbDeg">): boolean {
+  return (member?.outOfPlumbMm != null && member.outOfPlumbMm > 0) || (member?.outOfPlumbDeg != null && member.outOfPlumbDeg > 0);
+}
+
+/** Kinds whose lean the out-of-plumb method checks; for the others a lean is a warning, not a check. */
+export const LEAN_CHECKED_KINDS: readonly Kind[] = ["en1065-prop", "steel-section"];
+
+export function methodFor(type: CheckType, site: CheckSite, member?: Pick<CheckMember, "outOfPlumbMm" | "outOfPlumbDeg">): { method: string; basis: Basis } {
+  const leaning = isLeaning(member);
   if (leaning && type.kind === "en1065-prop") return { method: "out-of-plumb", basis: "safe-working-load" };
   if (leaning && type.kind === "steel-section") {
     if (site.designCode === "en1993") return { method: "out-of-plumb", basis: "design-resistance" };
@@ -79,7 +91,8 @@ export function buildCheckRequest(type: CheckType, member: CheckMember, site: Ch
   const request: Record<string, unknown> = { method, lengthMm: member.extensionMm, ends: member.endConditions };
   for (const key of TYPE_KEYS) if (type.params[key] !== undefined) request[key] = type.params[key];
   if (method === "out-of-plumb") {
-    request.outOfPlumbMm = member.outOfPlumbMm;
+    if (member.outOfPlumbMm != null && member.outOfPlumbMm > 0) request.outOfPlumbMm = member.outOfPlumbMm;
+    else request.outOfPlumbDeg = member.outOfPlumbDeg;
     if (type.kind === "steel-section") {
       request.plumbCode = site.designCode === "en1993" ? "en1993" : "aisc360";
       if (site.designCode !== "en1993") request.designBasis = site.designCode === "aisc360-lrfd" ? "lrfd" : "asd";

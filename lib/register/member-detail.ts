@@ -37,6 +37,10 @@ export async function memberDetail({ member, site }: { member: MemberView; site:
     notes: i.notes,
     failedItems: i.items.filter((it) => it.result === "fail").map((it) => `${checkLabel(it.check)}${it.note ? ` (${it.note})` : ""}`),
     photoIds: i.photoIds,
+    /** The plumb reading, when one was taken: the angle used for the re-check, and the offset as read. */
+    plumbDeg: i.plumbDeg,
+    plumbOffsetMm: i.plumbOffsetMm,
+    plumbOverMm: i.plumbOverMm,
   }));
   const permits = permitRows.map((p) => ({
     id: p.id,

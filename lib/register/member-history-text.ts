@@ -132,6 +132,14 @@ export function sentence(row: AuditRow, ctx: Ctx): { summary: string; details: s
       return { summary: row.action === "member.edited" ? "Edited." : "Edited and re-checked.", details };
     }
     case "member.rechecked": {
+      const checkText = [checkSentence({ pass: after.checkPass, utilisation: after.utilisation }) ?? ""].filter(Boolean);
+      if (typeof after.plumbDeg === "number") {
+        const deg = Number(after.plumbDeg.toFixed(2));
+        return {
+          summary: deg > 0 ? `Re-checked ${deg}° out of plumb, as read at an inspection.` : "Re-checked standing plumb, as read at an inspection.",
+          details: checkText,
+        };
+      }
       const rev = typeof after.memberTypeRevision === "number" ? ` (revision ${after.memberTypeRevision})` : "";
       return { summary: `Re-checked because its member type was revised${rev}.`, details: [checkSentence({ pass: after.checkPass, utilisation: after.utilisation }) ?? ""].filter(Boolean) };
     }

@@ -23,7 +23,20 @@ import { MEMBER_STATUS_LABELS } from "@/lib/labels";
 import { CHECK_FIELDS, EDITABLE_STATUSES, memberPatchSchema, memberStateSchema, type MemberCreate, type MemberPatch } from "@/lib/validations/member";
 import { statusEditConflict } from "./member-lifecycle";
 import { deriveSlabLoad, type SlabLoadInfo } from "./slab-load";
-import { checkSnapshot, runCheck, type CheckOutcome } from "./run-check";
+import { bearingRequest, checkSnapshot, runCheck, type CheckOutcome } from "./run-check";
+import { calculate, type Step } from "@/lib/engineering";
+import type { MemberBase } from "@/db/schema";
+
+/** A base the engine cannot check (no ground or slab, a partial sole plate…) is a 422 under `base.<field>`; nothing is stored. */
+function assertBaseCheckable(base: MemberBase | null | undefined, site: SiteForCheck) {
+  if (!base) return;
+  const r = calculate(bearingRequest(base, 1000, site).request);
+  if (!r.ok) {
+    const fields: FieldErrors = {};
+    for (const e of r.errors) if (e.field !== "loadN") fields[`base.${e.field || "basePlateBMm"}`] ??= e.message;
+    if (Object.keys(fields).length) throw new ValidationError(fields);
+  }
+}
 
 export type { MemberView, SessionUser, Tx };
 
@@ -41,9 +54,38 @@ export type CheckView = {
   loadBasis: string | null;
   warnings: string[];
   errors?: { field: string; message: string }[];
+  /** Bearing under the member's base, when the member carries one: its own pass, utilisation and working. */
+  bearing?: BearingView;
   engineVersion: string;
   createdAt: Date;
 };
+
+type BearingView = {
+  pass: boolean;
+  utilisation: number | null;
+  /** Load the bearing check used (working load on the ground, design load on a slab), N, and its factor. */
+  loadN: number | null;
+  loadFactor: number;
+  steps: Step[];
+  warnings: string[];
+  errors?: { field: string; message: string }[];
+};
+
+/** The stored bearing check of a snapshot, for the screen and the API. */
+function bearingView(result: Record<string, unknown>, inputs: Record<string, unknown>): BearingView | undefined {
+  const b = result.bearing as { ok?: boolean; pass?: boolean; utilisation?: number; steps?: Step[]; warnings?: string[]; errors?: { field: string; message: string }[] } | undefined;
+  if (!b) return undefined;
+  const base = inputs.base as { loadN?: number; loadFactor?: number } | undefined;
+  return {
+    pass: b.ok !== false && b.pass === true,
+    utilisation: b.utilisation ?? null,
+    loadN: typeof base?.loadN === "number" ? base.loadN : null,
+    loadFactor: Number(base?.loadFactor ?? 1),
+    steps: b.steps ?? [],
+    warnings: b.warnings ?? [],
+    ...(b.ok === false ? { errors: b.errors ?? [] } : {}),
+  };
+}
 
 export type SiteForCheck = { id: string; organisationId: string; designCode: "en1993" | "aisc360-lrfd" | "aisc360-asd"; unitSystem: "si" | "us" };
 
@@ -61,6 +103,7 @@ export function checkView(row: {
   const result = row.result as { ok?: boolean; warnings?: string[]; errors?: { field: string; message: string }[]; loadBasis?: string; basis?: string };
   const inputs = row.inputs as { basis?: string; loadFactor?: number; loadFactorSource?: string; slabLoad?: { warnings?: string[] } };
   const warnings = [...(result.warnings ?? []), ...(inputs.slabLoad?.warnings ?? [])];
+  const bearing = bearingView(row.result, row.inputs);
   return {
     id: row.id,
     capacityN: row.capacityN,
@@ -73,6 +116,7 @@ export function checkView(row: {
     loadBasis: result.loadBasis ?? null,
     warnings,
     ...(result.ok === false ? { errors: result.errors ?? [] } : {}),
+    ...(bearing ? { bearing } : {}),
     engineVersion: row.engineVersion,
     createdAt: row.createdAt,
   };
@@ -82,6 +126,11 @@ export function checkView(row: {
 export function failingReason(outcome: { capacityN: number | null; utilisation: number | null; result: Record<string, unknown> }): string {
   const r = outcome.result as { ok?: boolean; errors?: { message: string }[] };
   if (r.ok === false) return `The capacity check could not be completed: ${(r.errors ?? []).map((e) => e.message).join(" ") || "the engine refused the inputs."}`;
+  const b = (outcome.result as { bearing?: { ok?: boolean; pass?: boolean; utilisation?: number } }).bearing;
+  if (b && (b.ok === false || b.pass !== true)) {
+    const bp = b.utilisation == null ? "?" : Math.round(b.utilisation * 100);
+    return `The ground or slab under the member's base fails its bearing check (utilisation ${bp} %, over 100 %): spread the load with a larger sole plate or check the ground.`;
+  }
   const pct = outcome.utilisation == null ? "?" : Math.round(outcome.utilisation * 100);
   return `The member fails its capacity check (utilisation ${pct} %, over 100 %).`;
 }
@@ -209,7 +258,8 @@ export async function createMember(args: {
     if (Object.keys(errors).length) throw new ValidationError(errors);
     const planPlace = place as { planX: number | null; planY: number | null };
 
-    const outcome = runCheck(ref.type, { extensionMm: input.extensionMm, endConditions: input.endConditions, loadN: ref.loadN }, site);
+    assertBaseCheckable(input.base, site);
+    const outcome = runCheck(ref.type, { extensionMm: input.extensionMm, endConditions: input.endConditions, loadN: ref.loadN, base: input.base ?? null }, site);
     if (input.submit && !outcome.pass) {
       throw new ValidationError({ submit: `${failingReason(outcome)} A failing member cannot be submitted; save it as a draft and correct it.` }, "A failing member cannot be submitted.");
     }
@@ -230,6 +280,7 @@ export async function createMember(args: {
           loadN: ref.loadN,
           status: input.submit ? "submitted" : "draft",
           notes: input.notes ?? null,
+          base: input.base ?? null,
           capacityN: outcome.capacityN,
           utilisation: outcome.utilisation,
           checkPass: outcome.pass,
@@ -357,6 +408,7 @@ export async function updateMember(args: {
       spacingXMm: patch.spacingXMm !== undefined ? patch.spacingXMm : before.spacingXMm,
       spacingYMm: patch.spacingYMm !== undefined ? patch.spacingYMm : before.spacingYMm,
       notes: patch.notes !== undefined ? patch.notes : before.notes,
+      base: patch.base !== undefined ? patch.base : before.base,
     };
     const state = memberStateSchema.safeParse(merged);
     if (!state.success) throw new ValidationError(fieldErrorsFromZod(state.error.issues));
@@ -400,10 +452,12 @@ export async function updateMember(args: {
       spacingYMm: v.spacingYMm ?? null,
       notes: v.notes ?? null,
       ...place,
+      base: v.base ?? null,
     };
+    assertBaseCheckable(v.base, site);
     let outcome: CheckOutcome | null = null;
     if (touched || ref.loadN !== before.loadN) {
-      outcome = runCheck(ref.type, { extensionMm: v.extensionMm, endConditions: v.endConditions, loadN: ref.loadN }, site);
+      outcome = runCheck(ref.type, { extensionMm: v.extensionMm, endConditions: v.endConditions, loadN: ref.loadN, outOfPlumbDeg: before.outOfPlumbDeg, base: v.base ?? null }, site);
       pass = outcome.pass;
     }
     if (patch.status !== undefined && patch.status !== before.status) {
@@ -458,7 +512,11 @@ export async function recheckMembersOfType(args: { user: SessionUser; memberType
   const mine = rows.filter((r) => r.siteOrganisationId === user.organisationId);
   if (mine.length === 0) return 0;
   const outcomes = mine.map((m) => {
-    const outcome = runCheck(type, { extensionMm: m.extensionMm, endConditions: m.endConditions, loadN: m.loadN }, { designCode: m.siteDesignCode, unitSystem: m.siteUnitSystem });
+    const outcome = runCheck(
+      type,
+      { extensionMm: m.extensionMm, endConditions: m.endConditions, loadN: m.loadN, outOfPlumbDeg: m.outOfPlumbDeg, base: m.base },
+      { designCode: m.siteDesignCode, unitSystem: m.siteUnitSystem },
+    );
     // Keep the slab working of the member's previous check out of it: the load itself is unchanged.
     return { m, outcome };
   });
@@ -482,4 +540,50 @@ export async function recheckMembersOfType(args: { user: SessionUser; memberType
   }));
   await recordAudits(audits, tx);
   return mine.length;
+}
+
+/**
+ * Re-checks one member inside the caller's transaction after something outside its own fields
+ * changed (an inspection's plumb reading): `values` are stored with the new check, the member's
+ * latest result is updated and one audit row says why. The caller holds the member's row lock.
+ */
+export async function recheckMember(args: {
+  user: SessionUser;
+  site: Pick<SiteForCheck, "id" | "organisationId" | "designCode" | "unitSystem">;
+  memberId: string;
+  values?: Partial<Pick<Member, "outOfPlumbDeg">>;
+  reason: string;
+  audit?: Record<string, unknown>;
+  tx: Tx;
+}): Promise<{ before: Member; after: Member; outcome: CheckOutcome; check: CheckView }> {
+  const { user, site, memberId, values = {}, reason, tx } = args;
+  const before = await getMemberForUpdate({ memberId }, tx);
+  if (!before) throw new NotFoundError("That member");
+  const type = await getMemberType({ organisationId: site.organisationId, memberTypeId: before.memberTypeId, includeArchived: true }, tx);
+  if (!type) throw new NotFoundError("That member's type");
+  const merged = { ...before, ...values };
+  const outcome = runCheck(
+    type,
+    { extensionMm: merged.extensionMm, endConditions: merged.endConditions, loadN: merged.loadN, outOfPlumbDeg: merged.outOfPlumbDeg, base: merged.base },
+    site,
+  );
+  const row = await insertCheck({ memberId, reason, createdBy: user.id, ...checkRow(outcome, null) }, tx);
+  const after = await updateMemberRow(
+    { memberId, values: { ...values, latestCheckId: row.id, capacityN: row.capacityN, utilisation: row.utilisation, checkPass: row.pass } },
+    tx,
+  );
+  await recordAudit(
+    {
+      organisationId: site.organisationId,
+      siteId: site.id,
+      actorId: user.id,
+      action: "member.rechecked",
+      entityType: "member",
+      entityId: memberId,
+      before: { latestCheckId: before.latestCheckId, capacityN: before.capacityN, utilisation: before.utilisation, checkPass: before.checkPass, outOfPlumbDeg: before.outOfPlumbDeg },
+      after: { latestCheckId: row.id, capacityN: row.capacityN, utilisation: row.utilisation, checkPass: row.pass, outOfPlumbDeg: after.outOfPlumbDeg, reason, ...args.audit },
+    },
+    tx,
+  );
+  return { before, after, outcome, check: checkView(row) };
 }

@@ -9,6 +9,14 @@ export const MAX_INSPECTION_PHOTOS = 20;
 const resultSchema = (what: string) =>
   z.enum(inspectionResult.enumValues, { error: () => `${what} must be "pass" or "fail".` });
 
+/** A measure of the plumb reading: a finite number within [min, max] in its unit, with its own sentence. */
+const reading = (label: string, unit: string, max: number, positive = false) =>
+  z
+    .number({ error: (i) => `The ${label} must be a number in ${unit}${i.input === null ? "" : ` (got ${typeof i.input === "string" ? `"${i.input}"` : String(i.input)})`}.` })
+    .refine(Number.isFinite, `The ${label} must be a finite number in ${unit}.`)
+    .refine((v) => (positive ? v > 0 : v >= 0), positive ? `The ${label} must be more than 0 ${unit}.` : `The ${label} cannot be negative; give how far it leans, in ${unit}.`)
+    .refine((v) => v <= max, `The ${label} must be at most ${max.toLocaleString("en-GB")} ${unit}; check the unit.`);
+
 export const inspectionItemSchema = z.object({
   check: z
     .string({ error: () => "Each checklist item needs its check (e.g. \"plumb\")." })
@@ -29,8 +37,19 @@ export const inspectionSchema = z
       .max(MAX_INSPECTION_PHOTOS, `At most ${MAX_INSPECTION_PHOTOS} photos per inspection.`)
       .optional(),
     clientId: clientIdSchema.optional(),
+    /** Plumb reading as an angle from vertical (degrees) … */
+    plumbDeg: reading("out-of-plumb angle", "degrees", 45).optional(),
+    /** … or as an offset (mm) over a height (mm; the member's length when left out). */
+    plumbOffsetMm: reading("out-of-plumb offset", "mm", 5_000).optional(),
+    plumbOverMm: reading("height the offset was measured over", "mm", 30_000, true).optional(),
   })
   .superRefine((v, ctx) => {
+    if (v.plumbDeg !== undefined && v.plumbOffsetMm !== undefined)
+      ctx.addIssue({ code: "custom", path: ["plumbOffsetMm"], message: "Give the plumb reading either as an angle or as an offset, not both." });
+    if (v.plumbOverMm !== undefined && v.plumbOffsetMm === undefined)
+      ctx.addIssue({ code: "custom", path: ["plumbOffsetMm"], message: "Give the offset (mm) measured over that height, or leave the height out." });
+    if (v.plumbOverMm !== undefined && v.plumbOffsetMm !== undefined && v.plumbOffsetMm >= v.plumbOverMm)
+      ctx.addIssue({ code: "custom", path: ["plumbOffsetMm"], message: `An offset of ${v.plumbOffsetMm} mm over ${v.plumbOverMm} mm is 45° or more; check the reading.` });
     const items = v.items ?? [];
     const seen = new Set<string>();
     items.forEach((it, i) => {

@@ -1,7 +1,9 @@
 // One schema for logging and editing a member: the phone form validates with it and the server
 // parses the same input again. Values are SI (mm, N); the form converts ft-in and kN at its edge.
 import { z } from "zod";
-import { endCondition, loadSource, memberStatus } from "@/db/schema";
+import { endCondition, loadSource, memberStatus, type MemberBase } from "@/db/schema";
+import { N } from "@/lib/engineering/request-schema";
+import { SOIL_IDS } from "@/lib/engineering/soils";
 import { planPositionSchema } from "./zone-plan";
 
 export const MAX_PHOTOS_PER_MEMBER = 20;
@@ -37,6 +39,32 @@ export const tagSchema = z
   .max(40, "A tag has at most 40 characters.")
   .regex(TAG_PATTERN, "A tag starts with a letter or digit and uses only letters, digits, spaces and - _ . /");
 
+/**
+ * What the member stands on, as the engine's base-bearing inputs (SI: mm, kPa, MPa). The ground is
+ * an allowable pressure typed or a soil from the common-practice table; a back-prop on a slab gives
+ * the slab (depth or effective depth, and f_ck) for punching. Rules between the fields (a whole
+ * sole plate, a ground or a slab) are the engine's, reported under `base.<field>`.
+ */
+export const memberBaseSchema = z
+  .object(
+    {
+      basePlateBMm: N.plateMm("Base plate width"),
+      basePlateLMm: N.plateMm("Base plate length"),
+      solePlateBMm: N.plateMm("Sole plate width").optional(),
+      solePlateLMm: N.plateMm("Sole plate length").optional(),
+      solePlateTMm: N.plateMm("Sole plate thickness").optional(),
+      allowablePressureKPa: N.allowablePressureKPa.optional(),
+      soil: z.enum(SOIL_IDS, { error: () => `Ground type must be one of ${SOIL_IDS.join(", ")}.` }).optional(),
+      slabDepthMm: N.slabDepthMm.optional(),
+      slabEffectiveDepthMm: N.slabEffectiveDepthMm.optional(),
+      fckMpa: N.fckMpa.optional(),
+      rhoL: N.rhoL.optional(),
+      punchingCode: z.enum(["en1992", "aci318"], { error: () => "Punching code must be en1992 (EN 1992-1-1 §6.4) or aci318 (ACI 318-19 §22.6)." }).optional(),
+    },
+    { error: () => "The base must be an object: base plate width and length in mm, and the ground or the slab below." },
+  )
+  .strict() satisfies z.ZodType<MemberBase>;
+
 const base = {
   tag: tagSchema,
   zoneId: uuid("a zone").nullable().optional(),
@@ -49,6 +77,7 @@ const base = {
   spacingXMm: positive("as-built spacing X", "mm", 20_000).nullable().optional(),
   spacingYMm: positive("as-built spacing Y", "mm", 20_000).nullable().optional(),
   notes: z.string().trim().max(2000, "Notes have at most 2000 characters.").nullable().optional(),
+  base: memberBaseSchema.nullable().optional(),
 };
 
 type LoadShape = { loadSource?: "direct" | "slab"; loadN?: number; spacingXMm?: number | null; spacingYMm?: number | null; schemeId?: string | null };
@@ -99,6 +128,7 @@ export const memberPatchSchema = z
     spacingYMm: base.spacingYMm,
     notes: base.notes,
     planPosition: planPositionSchema,
+    base: base.base,
     status: z.enum(memberStatus.enumValues, { error: () => `Status must be one of: ${EDITABLE_STATUSES.join(", ")}.` }),
     /** The member's `version` the edit was made against; a newer one on the server is a 409 conflict. */
     baseVersion: z
@@ -112,7 +142,7 @@ export const memberPatchSchema = z
 export type MemberPatch = z.output<typeof memberPatchSchema>;
 
 /** Fields whose change alters the capacity check. */
-export const CHECK_FIELDS = ["extensionMm", "loadN", "loadSource", "spacingXMm", "spacingYMm", "endConditions", "memberTypeId", "schemeId"] as const;
+export const CHECK_FIELDS = ["extensionMm", "loadN", "loadSource", "spacingXMm", "spacingYMm", "endConditions", "memberTypeId", "schemeId", "base"] as const;
 
 /** The whole member after a patch, re-validated with the same rules as a new one. */
 export const memberStateSchema = z.object({ ...base }).superRefine(loadRules);

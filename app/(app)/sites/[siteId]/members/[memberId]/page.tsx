@@ -5,6 +5,8 @@ import { Icon } from "@/components/icons";
 import { CapacityChart } from "@/components/capacity-chart";
 import { BASIS_LABELS, CheckResult, PassBadge } from "@/components/register/check-result";
 import { formatUtilisation } from "@/lib/client/format";
+import type { MemberBase } from "@/db/schema";
+import { SOILS } from "@/lib/engineering/base-bearing";
 import { getMemberType, listMemberTypes } from "@/db/queries/member-types";
 import { getMemberForUser } from "@/db/queries/members";
 import { listSchemes } from "@/db/queries/schemes";
@@ -31,7 +33,32 @@ const CHECK_REASONS: Record<string, string> = {
   logged: "When logged",
   edited: "After an edit",
   imported: "When imported",
+  "plumb reading": "After a plumb reading at an inspection",
 };
+
+/** An inspection's plumb reading in words: the angle used, and the offset as read. */
+function plumbText(i: { plumbDeg: number | null; plumbOffsetMm: number | null; plumbOverMm: number | null }, len: (mm: number) => string) {
+  if (i.plumbDeg == null) return null;
+  const deg = `${Number(i.plumbDeg.toFixed(2))}°`;
+  if (i.plumbOffsetMm == null) return `Plumb reading: ${deg} out of plumb.`;
+  return `Plumb reading: ${len(i.plumbOffsetMm)} over ${i.plumbOverMm == null ? "the member's length" : len(i.plumbOverMm)} (${deg} out of plumb).`;
+}
+
+/** What the member stands on, in words and the site's units. */
+function baseText(b: MemberBase | null, len: (mm: number) => string) {
+  if (!b) return "Not given: bearing under the base is not checked";
+  const plate = `Base plate ${len(b.basePlateBMm)} × ${len(b.basePlateLMm)}`;
+  const sole = b.solePlateBMm != null && b.solePlateLMm != null ? `, sole plate ${len(b.solePlateBMm)} × ${len(b.solePlateLMm)}${b.solePlateTMm != null ? ` × ${len(b.solePlateTMm)}` : ""}` : "";
+  const below =
+    b.slabDepthMm != null || b.slabEffectiveDepthMm != null
+      ? `on a slab ${len(b.slabDepthMm ?? b.slabEffectiveDepthMm!)} deep${b.fckMpa != null ? `, f_ck ${b.fckMpa} MPa` : ""}`
+      : b.allowablePressureKPa != null
+        ? `on ground at ${b.allowablePressureKPa} kPa allowable`
+        : b.soil
+          ? `on ${SOILS[b.soil].label.toLowerCase()} (${SOILS[b.soil].kPa} kPa allowable: ${SOILS[b.soil].source})`
+          : "on ground of unknown bearing";
+  return `${plate}${sole}, ${below}`;
+}
 
 function fmtStep(s: Step) {
   if (typeof s.value === "string") return s.value;
@@ -148,6 +175,8 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
             ["End conditions", endConditionInfo(member.endConditions).label],
             ["Working load", `${formatForce(member.loadN, forceUnit)}${member.loadSource === "slab" ? " (derived from the scheme's slab)" : ""}`],
             ["As-built spacing", member.spacingXMm != null && member.spacingYMm != null ? `${len(member.spacingXMm)} × ${len(member.spacingYMm)}` : "—"],
+            ["Out of plumb (latest reading)", member.outOfPlumbDeg == null ? "No reading: checked standing plumb" : `${Number(member.outOfPlumbDeg.toFixed(2))}° — checked at this lean`],
+            ["Base", baseText(member.base, len)],
             ["Capacity", member.capacityN == null ? "—" : formatForce(member.capacityN, forceUnit)],
             ["Utilisation", formatUtilisation(member.utilisation)],
             ["Logged by", `${member.createdByName ?? "—"}, ${when(member.createdAt)}`],
@@ -175,6 +204,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
                   </span>
                   <span>{when(i.inspectedAt)}{i.inspectorName ? ` · ${i.inspectorName}` : ""}</span>
                 </p>
+                {plumbText(i, (mm) => len(mm)) ? <p className="text-sm" data-testid="inspection-plumb">{plumbText(i, (mm) => len(mm))}</p> : null}
                 {i.failedItems.length ? <p className="text-sm">Failed: {i.failedItems.join("; ")}</p> : null}
                 {i.notes ? <p className="text-sm text-ink-soft">Notes: {i.notes}</p> : null}
                 {i.nextDueAt ? <p className="text-sm text-ink-soft">Next due {when(i.nextDueAt)}</p> : null}
@@ -288,6 +318,38 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
                       </table>
                     ) : null}
                     {v.warnings.length ? <ul className="mt-2 text-sm">{v.warnings.map((w, i) => <li key={i}>⚠ {w}</li>)}</ul> : null}
+                    {v.bearing ? (
+                      <div className="mt-3 border-t border-ink/10 pt-2" data-testid="check-bearing">
+                        <h3 className="flex flex-wrap items-center gap-2 font-bold">
+                          Bearing under the base <PassBadge pass={v.bearing.pass} /> <span className="tabular">{formatUtilisation(v.bearing.utilisation)}</span>
+                        </h3>
+                        <p className="mb-1 text-sm">
+                          Load on the base {v.bearing.loadN == null ? "—" : formatForce(v.bearing.loadN, forceUnit)}
+                          {v.bearing.loadFactor !== 1 ? ` (working load × ${v.bearing.loadFactor} for punching)` : " (working load)"}. Failing bearing fails the member.
+                        </p>
+                        {v.bearing.errors?.length ? <ul className="mb-2">{v.bearing.errors.map((e, i) => <li key={i} className="font-semibold text-bad">⛔ {e.message}</li>)}</ul> : null}
+                        {v.bearing.steps.length ? (
+                          <table className="w-full min-w-[36rem] text-left text-sm">
+                            <caption className="sr-only">Working of the bearing check</caption>
+                            <thead className="bg-paper-sunk">
+                              <tr><th scope="col" className="p-1">Step</th><th scope="col" className="p-1">Symbol</th><th scope="col" className="p-1 text-right">Value</th><th scope="col" className="p-1">Unit</th><th scope="col" className="p-1">Source</th></tr>
+                            </thead>
+                            <tbody>
+                              {v.bearing.steps.map((s, i) => (
+                                <tr key={i} className="border-t border-ink/10">
+                                  <td className="p-1">{s.label}</td>
+                                  <td className="p-1 font-mono">{s.symbol}</td>
+                                  <td className="tabular p-1 text-right">{fmtStep(s)}</td>
+                                  <td className="p-1">{s.unit}</td>
+                                  <td className="p-1 text-ink-soft">{s.source}</td>
+                                </tr>
+                              ))}
+                            </tbody>
+                          </table>
+                        ) : null}
+                        {v.bearing.warnings.length ? <ul className="mt-2 text-sm">{v.bearing.warnings.map((w, i) => <li key={i}>⚠ {w}</li>)}</ul> : null}
+                      </div>
+                    ) : null}
                   </div>
                 </details>
               </li>

@@ -17,11 +17,33 @@ import { describedBy } from "@/components/ui/field";
 import { INSPECTION_CHECKS } from "@/lib/inspections/checklist";
 import { inspectionSchema, type InspectionInput } from "@/lib/validations/inspection";
 
-/** Photo problems are said above the form, beside the uploader, not on a field. */
-const inspectFieldOf = (k: string): string => (k === "photoIds" ? "_" : k);
+/** Photo and plumb-reading problems are said above the submit button, not on a checklist field. */
+const inspectFieldOf = (k: string): string => (k === "photoIds" || k.startsWith("plumb") ? "_" : k);
 
 type FormIn = z.input<typeof inspectionSchema>;
-type Draft = { values: FormIn; photos: UploadedPhoto[] };
+/** The plumb reading as typed (in the site's units), converted to the API's degrees or mm on submit. */
+type Plumb = { mode: "deg" | "offset"; deg: string; offset: string; over: string };
+type Draft = { values: FormIn; photos: UploadedPhoto[]; plumb?: Plumb };
+const emptyPlumb = (): Plumb => ({ mode: "deg", deg: "", offset: "", over: "" });
+
+/** The typed plumb reading as API fields, or the sentence saying what is wrong with it (in the site's units). */
+function plumbFields(p: Plumb, us: boolean): { ok: true; value: { plumbDeg?: number; plumbOffsetMm?: number; plumbOverMm?: number } } | { ok: false; error: string } {
+  const unit = us ? "in" : "mm";
+  const num = (t: string) => (t.trim() === "" ? undefined : Number(t.trim().replace(",", ".")));
+  if (p.mode === "deg") {
+    const deg = num(p.deg);
+    if (deg === undefined) return { ok: true, value: {} };
+    if (!Number.isFinite(deg) || deg < 0 || deg > 45) return { ok: false, error: `Out of plumb: give the angle from vertical in degrees, from 0 to 45 (got "${p.deg}").` };
+    return { ok: true, value: { plumbDeg: deg } };
+  }
+  const offset = num(p.offset);
+  const over = num(p.over);
+  if (offset === undefined) return over === undefined ? { ok: true, value: {} } : { ok: false, error: `Out of plumb: give the offset (${unit}) measured over that height.` };
+  if (!Number.isFinite(offset) || offset < 0) return { ok: false, error: `Out of plumb: give the offset as a number of ${unit}, 0 or more (got "${p.offset}").` };
+  if (over !== undefined && (!Number.isFinite(over) || over <= 0)) return { ok: false, error: `Out of plumb: the height the offset was measured over must be more than 0 ${unit} (got "${p.over}").` };
+  const toMm = (v: number) => (us ? v * 25.4 : v);
+  return { ok: true, value: { plumbOffsetMm: toMm(offset), ...(over !== undefined ? { plumbOverMm: toMm(over) } : {}) } };
+}
 
 const emptyValues = (): FormIn => ({
   result: undefined as unknown as "pass",
@@ -30,14 +52,17 @@ const emptyValues = (): FormIn => ({
   photoIds: [],
 });
 
-type Saved = { result: "pass" | "fail"; memberStatus: string; removedFromPermits: { label: string }[]; nextDueAt: string | null; queued?: boolean; leaving?: boolean };
+type Recheck = { outOfPlumbDeg: number; check: { pass: boolean; utilisation: number | null } } | null;
+type Saved = { result: "pass" | "fail"; memberStatus: string; removedFromPermits: { label: string }[]; nextDueAt: string | null; queued?: boolean; leaving?: boolean; recheck?: Recheck };
 
 /** The round's next member due, after this one (null when nothing else is due). */
 type NextDue = { memberId: string; tag: string } | null;
 
 export function InspectForm({
-  siteId, memberId, tag, status, plumbToleranceMm, intervalDays, next, roundQuery,
-}: { siteId: string; memberId: string; tag: string; status: string; plumbToleranceMm: number; intervalDays: number; next: NextDue; roundQuery: string }) {
+  siteId, memberId, tag, status, plumbToleranceMm, intervalDays, next, roundQuery, unitSystem = "si",
+}: { siteId: string; memberId: string; tag: string; status: string; plumbToleranceMm: number; intervalDays: number; next: NextDue; roundQuery: string; unitSystem?: "si" | "us" }) {
+  const us = unitSystem === "us";
+  const [plumb, setPlumb] = useState<Plumb>(emptyPlumb());
   const router = useRouter();
   const draftKey = `strutwise:inspection-draft:${memberId}`;
   const [photos, setPhotos] = useState<UploadedPhoto[]>([]);
@@ -56,6 +81,7 @@ export function InspectForm({
   const draft = useLocalDraft<Draft>(draftKey, (d) => {
     reset(d.values);
     setPhotos(d.photos ?? []);
+    setPlumb(d.plumb ?? emptyPlumb());
     setUploaderKey((k) => k + 1);
     setRestored(true);
   });
@@ -65,9 +91,9 @@ export function InspectForm({
   const values = watch();
   useEffect(() => {
     if (!loaded || saved) return;
-    const touched = values.result || values.notes || photos.length || (values.items ?? []).some((i) => i.result || i.note);
-    if (touched) saveDraft({ values, photos });
-  }, [values, photos, loaded, saveDraft, saved]);
+    const touched = values.result || values.notes || photos.length || (values.items ?? []).some((i) => i.result || i.note) || plumb.deg || plumb.offset || plumb.over;
+    if (touched) saveDraft({ values, photos, plumb });
+  }, [values, photos, plumb, loaded, saveDraft, saved]);
 
   const anyFailed = (values.items ?? []).some((i) => i.result === "fail");
   useEffect(() => {
@@ -102,10 +128,16 @@ export function InspectForm({
     );
   }
 
-  async function onSubmit(input: InspectionInput) {
+  async function onSubmit(form: InspectionInput) {
     setFormError(null);
+    const reading = plumbFields(plumb, us);
+    if (!reading.ok) {
+      setFormError(reading.error);
+      return;
+    }
+    const input: InspectionInput = { ...form, ...reading.value };
     // With no signal (or a request lost on a weak one) the inspection waits in the outbox and is sent once.
-    const r = await submitOrQueue<{ inspection: { nextDueAt: string | null }; member: { status: string }; removedFromPermits: { label: string }[] }>({
+    const r = await submitOrQueue<{ inspection: { nextDueAt: string | null; result: "pass" | "fail" }; member: { status: string }; removedFromPermits: { label: string }[]; recheck: Recheck }>({
       kind: "inspection",
       siteId,
       label: `Inspection of ${tag} (${input.result === "pass" ? "pass" : "fail"})`,
@@ -126,14 +158,16 @@ export function InspectForm({
       return;
     }
     draft.clear();
-    // A pass: straight on to the next member due (the round in three taps a member). A failure
+    setPlumb(emptyPlumb());
+    // A pass with no plumb re-check to read: straight on to the next member due (the round in three
+    // taps a member). A failure — including one the plumb re-check made — or a re-check to read
     // stays on this screen, which says what it did (out of service, permits, who was told).
-    if (input.result === "pass") {
-      setSaved({ result: input.result, memberStatus: r.data.member.status, removedFromPermits: [], nextDueAt: r.data.inspection.nextDueAt, leaving: true });
+    if (r.data.inspection.result === "pass" && !r.data.recheck) {
+      setSaved({ result: "pass", memberStatus: r.data.member.status, removedFromPermits: [], nextDueAt: r.data.inspection.nextDueAt, leaving: true });
       router.push(afterSaving(status === "out_of_service" && r.data.member.status !== "out_of_service"));
       return;
     }
-    setSaved({ result: input.result, memberStatus: r.data.member.status, removedFromPermits: r.data.removedFromPermits, nextDueAt: r.data.inspection.nextDueAt });
+    setSaved({ result: r.data.inspection.result, memberStatus: r.data.member.status, removedFromPermits: r.data.removedFromPermits, nextDueAt: r.data.inspection.nextDueAt, recheck: r.data.recheck });
     router.refresh();
   }
 
@@ -168,6 +202,13 @@ export function InspectForm({
         <p className={`flex items-center gap-2 text-lg font-bold ${pass ? "text-ok" : "text-bad"}`}>
           <Icon name={pass ? "ok" : "bad"} /> Inspection recorded: {tag} {pass ? "passed" : "failed"}
         </p>
+        {saved.recheck ? (
+          <p data-testid="plumb-recheck">
+            Re-checked {Number(saved.recheck.outOfPlumbDeg.toFixed(2))}° out of plumb: utilisation{" "}
+            {saved.recheck.check.utilisation == null ? "—" : `${Math.round(saved.recheck.check.utilisation * 100)} %`},{" "}
+            {saved.recheck.check.pass ? "still passes its capacity check." : recheckFailText(saved.result)}
+          </p>
+        ) : null}
         {pass ? (
           <p>
             Next inspection due{" "}
@@ -184,7 +225,7 @@ export function InspectForm({
         <div className="flex flex-wrap gap-2">
           {next ? <ButtonLink href={afterSaving(false)}>Next due: {next.tag}</ButtonLink> : null}
           <ButtonLink href={roundHref} variant={next ? "secondary" : "primary"}>Back to the inspection round</ButtonLink>
-          <Button type="button" variant="secondary" onClick={() => { reset(emptyValues()); setPhotos([]); setUploaderKey((k) => k + 1); setSaved(null); }}>
+          <Button type="button" variant="secondary" onClick={() => { reset(emptyValues()); setPlumb(emptyPlumb()); setPhotos([]); setUploaderKey((k) => k + 1); setSaved(null); }}>
             Record another inspection
           </Button>
         </div>
@@ -220,7 +261,12 @@ export function InspectForm({
               <p id={`${id}-label`} className="font-semibold">
                 {c.label}
               </p>
-              {c.key === "plumb" ? <p className="text-sm text-ink-soft">Site tolerance: out of plumb by no more than {plumbToleranceMm} mm.</p> : null}
+              {c.key === "plumb" ? (
+                <>
+                  <p className="text-sm text-ink-soft">Site tolerance: out of plumb by no more than {plumbToleranceMm} mm.</p>
+                  <PlumbReading plumb={plumb} onChange={setPlumb} us={us} />
+                </>
+              ) : null}
               <input type="hidden" {...register(`items.${i}.check` as const)} />
               <div className="mt-2 grid grid-cols-2 gap-2">
                 {(["pass", "fail"] as const).map((r) => (
@@ -331,5 +377,45 @@ export function InspectForm({
         Back to the round
       </Link>
     </form>
+  );
+}
+
+function recheckFailText(result: "pass" | "fail") {
+  return result === "fail" ? "it fails its capacity check at this lean, so the inspection is recorded as failed." : "it fails its capacity check at this lean.";
+}
+
+/** The measured lean, typed as an angle or as an offset over a height; it re-checks the member at that lean. */
+function PlumbReading({ plumb, onChange, us }: { plumb: Plumb; onChange: (p: Plumb) => void; us: boolean }) {
+  const unit = us ? "in" : "mm";
+  const input = "min-h-touch w-full rounded-lg border-2 border-ink/40 bg-paper-raised px-3 py-2";
+  return (
+    <fieldset className="mt-2 flex flex-col gap-2 rounded-lg border border-ink/20 p-2">
+      <legend className="px-1 text-sm font-semibold">Measured lean (optional: the member is re-checked at it)</legend>
+      <div className="flex flex-wrap gap-3 text-sm">
+        {(["deg", "offset"] as const).map((m) => (
+          <label key={m} className="flex min-h-touch items-center gap-2">
+            <input type="radio" name="plumb-mode" checked={plumb.mode === m} onChange={() => onChange({ ...plumb, mode: m })} />
+            {m === "deg" ? "Angle (degrees)" : `Offset (${unit})`}
+          </label>
+        ))}
+      </div>
+      {plumb.mode === "deg" ? (
+        <label className="flex flex-col gap-1 text-sm">
+          Out of plumb, degrees from vertical
+          <input inputMode="decimal" className={input} value={plumb.deg} onChange={(e) => onChange({ ...plumb, deg: e.target.value })} aria-label="Out of plumb, degrees from vertical" />
+        </label>
+      ) : (
+        <div className="grid grid-cols-1 gap-2 sm:grid-cols-2">
+          <label className="flex flex-col gap-1 text-sm">
+            Offset ({unit})
+            <input inputMode="decimal" className={input} value={plumb.offset} onChange={(e) => onChange({ ...plumb, offset: e.target.value })} aria-label={`Out of plumb offset (${unit})`} />
+          </label>
+          <label className="flex flex-col gap-1 text-sm">
+            Measured over a height of ({unit}; blank = the member&apos;s length)
+            <input inputMode="decimal" className={input} value={plumb.over} onChange={(e) => onChange({ ...plumb, over: e.target.value })} aria-label={`Height the offset was measured over (${unit})`} />
+          </label>
+        </div>
+      )}
+    </fieldset>
   );
 }

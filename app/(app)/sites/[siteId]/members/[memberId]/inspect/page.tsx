@@ -90,6 +90,7 @@ export default async function InspectPage({
           status={member.status}
           plumbToleranceMm={site.plumbToleranceMm}
           intervalDays={site.inspectionIntervalDays}
+          unitSystem={site.unitSystem}
           next={next}
           roundQuery={roundQuery}
         />
