@@ -8,24 +8,4 @@ export const fmtForce = formatForceFor;
 export const fmtLength = formatLengthFor;
 export const fmtUtilisation = formatUtilisation;
 
-export function fmtDateTime(d: Date | string | null | undefined, timeZone: string, units: UnitSystem = "si"): string {
-  if (!d) return "—";
-  const date = typeof d === "string" ? new Date(d) : d;
-  if (Number.isNaN(date.getTime())) return "—";
-  return new Intl.DateTimeFormat(units === "us" ? "en-US" : "en-GB", {
-    timeZone,
-    day: "numeric",
-    month: "short",
-    year: "numeric",
-    hour: "2-digit",
-    minute: "2-digit",
-    timeZoneName: "short",
-  }).format(date);
-}
-
-export function fmtDate(d: Date | string | null | undefined, timeZone: string, units: UnitSystem = "si"): string {
-  if (!d) return "—";
-  const date = typeof d === "string" ? new Date(d) : d;
-  if (Number.isNaN(date.getTime())) return "—";
-  return new Intl.DateTimeFormat(units === "us" ? "en-US" : "en-GB", { timeZone, day: "numeric", month: "short", year: "numeric" }).format(date);
-}
+// Dates and times are written by lib/format-date.ts, the same on every screen, PDF and e-mail.

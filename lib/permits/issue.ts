@@ -15,7 +15,8 @@ import { MAX_VALIDITY_DAYS, PERMIT_KIND_LABELS, permitNumberLabel, type PermitIs
 import { authorityFor } from "./authority";
 import { detailFor, permitRecord } from "./detail";
 import { alreadyDecided, PreconditionError } from "./errors";
-import { fmtDateTime, type UnitSystem } from "./format";
+import { formatDateTime } from "@/lib/format-date";
+import type { UnitSystem } from "./format";
 import { renderAndStorePermitPdf } from "./pdf";
 import { evaluatePermit } from "./preconditions";
 import { transitionPermit } from "./transition";
@@ -72,7 +73,7 @@ export async function issuePermit(ctx: Ctx, nowArg?: Date) {
         siteName: site.name,
         scope: scopeWords(scope.length, zoneNames),
         zones: zoneNames.join(", ") || "—",
-        validUntil: fmtDateTime(validUntil, site.timezone, units),
+        validUntil: formatDateTime(validUntil, site.timezone),
         issuedBy: user.name,
         conditions,
         url: permitUrl(locked.siteId, locked.id),

@@ -6,7 +6,8 @@ import { ButtonLink, buttonClass } from "@/components/ui/button";
 import { countPermitsAwaitingReview, listPermits } from "@/db/queries/permits";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { PERMIT_STATUS_LABELS } from "@/lib/labels";
-import { fmtDateTime, type UnitSystem } from "@/lib/permits/format";
+import { formatDateTime } from "@/lib/format-date";
+import type { UnitSystem } from "@/lib/permits/format";
 import { PERMIT_KIND_LABELS, permitListQuerySchema, permitNumberLabel, type PermitListQuery } from "@/lib/validations/permit";
 import { PermitStatus } from "./permit-status";
 
@@ -117,7 +118,7 @@ export default async function PermitsPage({ params, searchParams }: { params: Pr
                     {r.zoneName ? ` · ${r.zoneName}` : ""}
                   </span>
                   <span className="text-sm text-ink-soft">
-                    {r.validUntil ? `Valid until ${fmtDateTime(r.validUntil, site.timezone, units)}` : `Requested ${fmtDateTime(r.requestedAt, site.timezone, units)} by ${r.requestedByName}`}
+                    {r.validUntil ? `Valid until ${formatDateTime(r.validUntil, site.timezone)}` : `Requested ${formatDateTime(r.requestedAt, site.timezone)} by ${r.requestedByName}`}
                   </span>
                 </Link>
               </li>
@@ -159,10 +160,10 @@ export default async function PermitsPage({ params, searchParams }: { params: Pr
                     </td>
                     <td className="tabular p-2 text-right">{r.scopeSize}</td>
                     <td className="tabular p-2">
-                      {fmtDateTime(r.requestedAt, site.timezone, units)}
+                      {formatDateTime(r.requestedAt, site.timezone)}
                       <div className="text-sm text-ink-soft">{r.requestedByName}</div>
                     </td>
-                    <td className="tabular p-2">{fmtDateTime(r.validUntil, site.timezone, units)}</td>
+                    <td className="tabular p-2">{formatDateTime(r.validUntil, site.timezone)}</td>
                     <td className="p-2 text-sm">
                       {r.zoneName ?? "Several zones"}
                       <div className="text-ink-soft">{r.schemeReference ?? "Several schemes"}</div>

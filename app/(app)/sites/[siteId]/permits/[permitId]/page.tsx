@@ -9,7 +9,8 @@ import { loadSitePage } from "@/lib/auth/site-page";
 import { NotFoundError } from "@/lib/errors";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
 import { permitDetail, type PermitDetail } from "@/lib/permits";
-import { fmtDateTime, fmtForce, fmtLength, fmtUtilisation } from "@/lib/permits/format";
+import { formatDateTime } from "@/lib/format-date";
+import { fmtForce, fmtLength, fmtUtilisation } from "@/lib/permits/format";
 import { evidenceFinding as describeEvidence } from "@/lib/permits/preconditions";
 import type { Finding } from "@/lib/permits/preconditions";
 import { MAX_VALIDITY_DAYS, PERMIT_KIND_LABELS } from "@/lib/validations/permit";
@@ -241,7 +242,7 @@ export default async function PermitPage({ params }: { params: Promise<{ siteId:
   const p = d.permit;
   const v = d.view;
   const tz = site.timezone;
-  const when = (x: Date | null) => fmtDateTime(x, tz, d.units);
+  const when = (x: Date | null) => formatDateTime(x, tz);
   const title = d.numberLabel ?? `${PERMIT_KIND_LABELS[p.kind]} — request`;
   const evidenceFinding = p.kind === "strike" ? d.evaluation.permit.find((f) => f.key === "evidence") : undefined;
   const waiting = (p.status === "issued" && !p.pdfKey) || d.emails.some((e) => e.waiting || e.status === "queued" || e.status === "sending");

@@ -14,6 +14,7 @@ import { newClientId, submitOrQueue } from "@/lib/client/outbox/submit";
 import { PhotoUploader, type QueuedFile, type UploadedPhoto } from "@/components/register/photo-uploader";
 import { Button, ButtonLink } from "@/components/ui/button";
 import { describedBy } from "@/components/ui/field";
+import { formatDateTime } from "@/lib/format-date";
 import { INSPECTION_CHECKS } from "@/lib/inspections/checklist";
 import { inspectionSchema, type InspectionInput } from "@/lib/validations/inspection";
 
@@ -33,8 +34,8 @@ const emptyValues = (): FormIn => ({
 type Saved = { result: "pass" | "fail"; memberStatus: string; removedFromPermits: { label: string }[]; nextDueAt: string | null; queued?: boolean };
 
 export function InspectForm({
-  siteId, memberId, tag, plumbToleranceMm, intervalDays,
-}: { siteId: string; memberId: string; tag: string; plumbToleranceMm: number; intervalDays: number }) {
+  siteId, memberId, tag, plumbToleranceMm, intervalDays, timeZone,
+}: { siteId: string; memberId: string; tag: string; plumbToleranceMm: number; intervalDays: number; timeZone: string }) {
   const router = useRouter();
   const draftKey = `strutwise:inspection-draft:${memberId}`;
   const [photos, setPhotos] = useState<UploadedPhoto[]>([]);
@@ -118,7 +119,7 @@ export function InspectForm({
         {pass ? (
           <p>
             Next inspection due{" "}
-            {saved.nextDueAt ? new Date(saved.nextDueAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : `in ${intervalDays} days`}.
+            {saved.nextDueAt ? formatDateTime(saved.nextDueAt, timeZone) : `in ${intervalDays} days`}.
             {saved.memberStatus === "submitted" ? " The member is back in service (submitted); it needs a new permit before it is loaded." : ""}
           </p>
         ) : (
