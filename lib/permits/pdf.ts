@@ -10,7 +10,7 @@ import { putObject } from "@/lib/storage";
 import { PERMIT_KIND_LABELS } from "@/lib/validations/permit";
 import { permitRecord, type PermitRecord } from "./detail";
 import { formatDateTime } from "@/lib/format-date";
-import { fmtForce, fmtLength, fmtUtilisation, type UnitSystem } from "./format";
+import { fmtForce, fmtValidUntil, fmtLength, fmtUtilisation, type UnitSystem } from "./format";
 import { evidenceFinding } from "./preconditions";
 import { permitUrl } from "./urls";
 
@@ -44,7 +44,7 @@ export function permitPdfData(r: PermitRecord): PermitPdfData | null {
     requestNote: p.requestNote,
     issuedBy: v.approvedByName ?? "—",
     issuedAt: formatDateTime(p.issuedAt, tz),
-    validUntil: formatDateTime(p.validUntil, tz),
+    validUntil: fmtValidUntil(p.issuedAt, p.validUntil, tz),
     conditions: p.conditions,
     evidence: p.kind === "strike" ? evidenceFinding(p.evidence).text : null,
     members: scope.map((m) => ({

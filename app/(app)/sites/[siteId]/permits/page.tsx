@@ -10,6 +10,7 @@ import { formatDateTime } from "@/lib/format-date";
 import type { UnitSystem } from "@/lib/permits/format";
 import { PERMIT_KIND_LABELS, permitListQuerySchema, permitNumberLabel, type PermitListQuery } from "@/lib/validations/permit";
 import { PermitStatus } from "./permit-status";
+import { requestReference } from "@/lib/permits/words";
 
 export const metadata: Metadata = { title: "Permits" };
 
@@ -110,7 +111,7 @@ export default async function PermitsPage({ params, searchParams }: { params: Pr
               <li key={r.id}>
                 <Link href={`${base}/${r.id}`} className="flex flex-col gap-1 rounded-xl border-2 border-ink/15 bg-paper-raised p-3">
                   <span className="flex items-center justify-between gap-2">
-                    <span className="font-bold">{permitNumberLabel(r.kind, r.number) ?? `${PERMIT_KIND_LABELS[r.kind]} request`}</span>
+                    <span className="font-bold">{permitNumberLabel(r.kind, r.number) ?? requestReference(r, site.timezone)}</span>
                     <PermitStatus status={r.status} />
                   </span>
                   <span className="text-sm">
@@ -151,7 +152,7 @@ export default async function PermitsPage({ params, searchParams }: { params: Pr
                   <tr key={r.id} className="border-t border-ink/10 hover:bg-paper-sunk">
                     <td className="p-2 font-bold">
                       <Link href={`${base}/${r.id}`} className="underline-offset-4 hover:underline">
-                        {permitNumberLabel(r.kind, r.number) ?? "Request"}
+                        {permitNumberLabel(r.kind, r.number) ?? requestReference(r, site.timezone)}
                       </Link>
                     </td>
                     <td className="p-2">{PERMIT_KIND_LABELS[r.kind]}</td>
