@@ -4,6 +4,8 @@ import { renderEmail } from "./layout";
 
 export function permitIssuedUnderScopeEmail(p: {
   numberLabel: string;
+  /** The request it was issued from (requestReference). */
+  request: string;
   kindLabel: string;
   siteName: string;
   scope: string;
@@ -23,6 +25,7 @@ export function permitIssuedUnderScopeEmail(p: {
     ],
     facts: [
       ["Permit", p.numberLabel],
+      ["Request", p.request],
       ["Site", p.siteName],
       ["Zone", p.zones],
       ["Valid until", p.validUntil],

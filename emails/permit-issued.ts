@@ -3,6 +3,8 @@ import { renderEmail } from "./layout";
 
 export function permitIssuedEmail(p: {
   numberLabel: string;
+  /** The request it was issued from (requestReference). */
+  request: string;
   kindLabel: string;
   siteName: string;
   scope: string;
@@ -20,6 +22,7 @@ export function permitIssuedEmail(p: {
     ],
     facts: [
       ["Permit", p.numberLabel],
+      ["Request", p.request],
       ["Site", p.siteName],
       ["Zone", p.zones],
       ["Valid until", p.validUntil],

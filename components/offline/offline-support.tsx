@@ -1,6 +1,7 @@
 "use client";
 // Registers the service worker, asks it to keep the pages of a round while there is signal, and
 // says so when what is shown was loaded earlier: "Offline — showing what was loaded at 14:32".
+import { formatTime } from "@/lib/format-date";
 import { usePathname } from "next/navigation";
 import { useEffect, useState } from "react";
 import { Icon } from "@/components/icons";
@@ -64,7 +65,7 @@ export function OfflineSupport({ renderedAt, siteRoot }: { renderedAt: string; s
   }, [pathname, siteRoot]);
 
   if (!offline) return null;
-  const at = new Date(renderedAt).toLocaleTimeString("en-GB", { hour: "2-digit", minute: "2-digit" });
+  const at = formatTime(renderedAt);
   return (
     <div role="status" className="flex items-center gap-2 border-b-2 border-warn bg-warn-soft px-4 py-2 text-sm font-semibold print:hidden" data-testid="offline-banner">
       <Icon name="warn" className="h-5 w-5 shrink-0" />

@@ -2,6 +2,7 @@
 // "Waiting to send" in the header: how many entries this phone still holds, each with its
 // progress, "Send now", and for one the server refused: the reason and a way to fix and resend.
 // Sending starts by itself when the connection returns and whenever the app opens with signal.
+import { formatTime } from "@/lib/format-date";
 import { useEffect, useRef, useState } from "react";
 import { Icon } from "@/components/icons";
 import { Button } from "@/components/ui/button";
@@ -87,7 +88,7 @@ export function OutboxBadge() {
 }
 
 function OutboxRow({ item }: { item: OutboxItem }) {
-  const queued = new Date(item.queuedAt).toLocaleTimeString("en-GB", { hour: "2-digit", minute: "2-digit" });
+  const queued = formatTime(item.queuedAt);
   return (
     <li className="rounded-lg border-2 border-ink/15 p-2" data-testid="outbox-item" data-status={item.status}>
       <p className="font-semibold">{item.label}</p>

@@ -24,6 +24,7 @@ export async function lockMemberForInspection({ memberId }: { memberId: string }
       unitSystem: sites.unitSystem,
       siteName: sites.name,
       inspectionIntervalDays: sites.inspectionIntervalDays,
+      siteTimezone: sites.timezone,
     })
     .from(members)
     .innerJoin(sites, eq(sites.id, members.siteId))
@@ -152,6 +153,7 @@ export type RoundRow = {
   triggeredAt: Date | null;
   triggerReason: string | null;
   inspectionIntervalDays: number;
+  siteTimezone: string;
 };
 
 /**
@@ -166,7 +168,7 @@ export async function listInspectionRound(
   const rows = (await tx.execute(sql`
     select m.id as member_id, m.site_id, m.tag, m.status, m.zone_id, z.name as zone_name, m.scheme_id, sc.reference as scheme_reference,
       li.result as last_result, li.inspected_at as last_inspected_at, li.next_due_at,
-      tr.triggered_at, tr.reason as trigger_reason, s.inspection_interval_days
+      tr.triggered_at, tr.reason as trigger_reason, s.inspection_interval_days, s.timezone as site_timezone
     from members m
     join sites s on s.id = m.site_id
     left join zones z on z.id = m.zone_id
@@ -201,6 +203,7 @@ export async function listInspectionRound(
     triggeredAt: toDate(r.triggered_at),
     triggerReason: (r.trigger_reason as string | null) ?? null,
     inspectionIntervalDays: Number(r.inspection_interval_days),
+    siteTimezone: r.site_timezone as string,
   }));
 }
 

@@ -254,6 +254,7 @@ export async function listIssuedPermitsForExpiry({ siteIds }: { siteIds?: string
       organisationId: sites.organisationId,
       siteName: sites.name,
       expiryWarningHours: sites.expiryWarningHours,
+      siteTimezone: sites.timezone,
     })
     .from(permits)
     .innerJoin(sites, eq(sites.id, permits.siteId))

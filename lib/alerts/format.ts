@@ -1,9 +1,5 @@
-// Dates and figures in alert titles and e-mails: the site's own time zone, in words people read.
+// Figures in alert titles and e-mails, in words people read (dates: lib/format-date.ts).
 import { formatForceFor, formatUtilisation } from "@/lib/client/format";
-
-export function formatWhen(d: Date, timeZone = "Europe/London") {
-  return new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone }).format(d);
-}
 
 export function formatPercent(utilisation: number | null) {
   return utilisation == null || !Number.isFinite(utilisation) ? "not computable" : formatUtilisation(utilisation);

@@ -8,7 +8,8 @@ import { recordAudit } from "@/db/queries/audit";
 import { listInspectionRound } from "@/db/queries/inspections";
 import { expireIssuedPermit, listIssuedPermitsForExpiry, unloadMembersOfExpiredPermit } from "@/db/queries/permits";
 import { DUE_SOON_MS, inspectionState } from "@/lib/inspections/due";
-import { formatKn, formatPercent, formatWhen, permitLabel } from "./format";
+import { formatDateTime, formatHours } from "@/lib/format-date";
+import { formatKn, formatPercent, permitLabel } from "./format";
 import { raiseAlerts, type AlertCandidate } from "./raise";
 
 export type ScanScope = { now?: Date; siteIds?: string[] | null };
@@ -72,7 +73,7 @@ export async function scanPermitExpiry({ now = new Date(), siteIds = null }: Sca
               threshold: `expired:${until.toISOString()}`,
               title: `${cap(label)} has expired`,
               body:
-                `${cap(label)} on ${p.siteName} expired at ${formatWhen(until)}. ` +
+                `${cap(label)} on ${p.siteName} expired at ${formatDateTime(until, p.siteTimezone)}. ` +
                 (unloaded.length
                   ? `${unloaded.length} member${unloaded.length === 1 ? " is" : "s are"} no longer covered by a permit to load (${unloaded.slice(0, 20).map((m) => m.tag).join(", ")}${unloaded.length > 20 ? "…" : ""}). `
                   : "") +
@@ -95,8 +96,8 @@ export async function scanPermitExpiry({ now = new Date(), siteIds = null }: Sca
               subjectType: "permit",
               subjectId: p.id,
               threshold: `expiring:${until.toISOString()}`,
-              title: `${cap(label)} expires ${formatWhen(until)}`,
-              body: `${cap(label)} on ${p.siteName} expires at ${formatWhen(until)} (within ${p.expiryWarningHours} hours). Renew it or plan to unload before then.`,
+              title: `${cap(label)} expires ${formatDateTime(until, p.siteTimezone)}`,
+              body: `${cap(label)} on ${p.siteName} expires at ${formatDateTime(until, p.siteTimezone)} (within ${formatHours(p.expiryWarningHours)}). Renew it or plan to unload before then.`,
               link,
               createdAt: now,
             },
@@ -120,11 +121,11 @@ export async function scanInspections({ now = new Date(), siteIds = null }: Scan
     if (!s.dueAt || (s.state !== "overdue" && s.state !== "due_now" && s.state !== "due_soon")) continue;
     const base = { siteId: r.siteId, subjectType: "member", subjectId: r.memberId, threshold: `due:${s.dueAt.toISOString()}`, link: `/sites/${r.siteId}/members/${r.memberId}/inspect`, createdAt: now };
     if (s.state === "due_soon" && s.dueAt.getTime() - now.getTime() <= DUE_SOON_MS)
-      candidates.push({ ...base, kind: "inspection_due_soon", title: `${r.tag}: inspection due ${formatWhen(s.dueAt)}`, body: `${r.tag}${r.zoneName ? ` (${r.zoneName})` : ""} was last inspected ${formatWhen(r.lastInspectedAt!)}; its next inspection is due ${formatWhen(s.dueAt)}.` });
+      candidates.push({ ...base, kind: "inspection_due_soon", title: `${r.tag}: inspection due ${formatDateTime(s.dueAt, r.siteTimezone)}`, body: `${r.tag}${r.zoneName ? ` (${r.zoneName})` : ""} was last inspected ${formatDateTime(r.lastInspectedAt!, r.siteTimezone)}; its next inspection is due ${formatDateTime(s.dueAt, r.siteTimezone)}.` });
     else if (s.state === "due_now")
-      candidates.push({ ...base, kind: "inspection_overdue", title: `${r.tag}: inspection due now — ${r.triggerReason}`, body: `The coordinator asked for inspections${r.zoneName ? ` in ${r.zoneName}` : ""} after: ${r.triggerReason} (${formatWhen(r.triggeredAt!)}). ${r.tag} has not been inspected since.` });
+      candidates.push({ ...base, kind: "inspection_overdue", title: `${r.tag}: inspection due now — ${r.triggerReason}`, body: `The coordinator asked for inspections${r.zoneName ? ` in ${r.zoneName}` : ""} after: ${r.triggerReason} (${formatDateTime(r.triggeredAt!, r.siteTimezone)}). ${r.tag} has not been inspected since.` });
     else if (s.state === "overdue")
-      candidates.push({ ...base, kind: "inspection_overdue", title: `${r.tag}: inspection overdue since ${formatWhen(s.dueAt)}`, body: `${r.tag}${r.zoneName ? ` (${r.zoneName})` : ""} was last inspected ${formatWhen(r.lastInspectedAt!)} and was due again ${formatWhen(s.dueAt)}. Inspect it before it carries more load.` });
+      candidates.push({ ...base, kind: "inspection_overdue", title: `${r.tag}: inspection overdue since ${formatDateTime(s.dueAt, r.siteTimezone)}`, body: `${r.tag}${r.zoneName ? ` (${r.zoneName})` : ""} was last inspected ${formatDateTime(r.lastInspectedAt!, r.siteTimezone)} and was due again ${formatDateTime(s.dueAt, r.siteTimezone)}. Inspect it before it carries more load.` });
   }
   if (candidates.length === 0) return 0;
   let raised = 0;

@@ -17,7 +17,7 @@ import { ROLE_LABELS } from "@/lib/permissions";
 import type { z } from "zod";
 import type { acceptInvitationSchema, invitationSchema } from "@/lib/validations/onboarding";
 import { getCurrentUser, type SessionUser } from "./index";
-import { formatDateTime } from "./format";
+import { formatDateTime } from "@/lib/format-date";
 import { hashPassword } from "./password";
 import { passwordProblem } from "./password-policy";
 import { hashToken, looksLikeToken, newToken } from "./tokens";

@@ -12,7 +12,8 @@ import {
 import { removeMemberFromIssuedPermits } from "@/db/queries/permits";
 import { enqueueEmails } from "@/db/queries/outbox";
 import { renderPermitMemberRemoved } from "@/emails/alert-permit-member-removed";
-import { formatWhen, permitLabel } from "@/lib/alerts/format";
+import { formatDateTime } from "@/lib/format-date";
+import { permitLabel } from "@/lib/alerts/format";
 import { raiseAlerts } from "@/lib/alerts/raise";
 import { overloadCandidate } from "@/lib/alerts/scans";
 import { failingReason, recheckMember, type CheckView } from "@/lib/register/members";
@@ -133,7 +134,7 @@ export async function recordInspection(args: { user: SessionUser; member: { id: 
         status = "out_of_service";
       }
       const failed = items.filter((i) => i.result === "fail").map((i) => `${checkLabel(i.check)}${i.note ? ` (${i.note})` : ""}`);
-      const when = formatWhen(now);
+      const when = formatDateTime(now, member.siteTimezone);
       const reason = `Failed inspection on ${when}${failed.length ? `: ${failed.join("; ")}` : ""}`.slice(0, 500);
       const permits = await removeMemberFromIssuedPermits({ memberId, reason, now }, tx);
       for (const p of permits) {

@@ -10,7 +10,7 @@ import { PERMIT_KIND_LABELS, permitNumberLabel } from "@/lib/validations/permit"
 import { alreadyDecided, wrongState } from "./errors";
 import { transitionPermit } from "./transition";
 import { permitUrl } from "./urls";
-import { scopeWords, zonesOf } from "./words";
+import { requestReference, scopeWords, zonesOf } from "./words";
 
 type Ctx<I = undefined> = { user: SessionUser; site: Site; resource: Permit; input: I };
 const actorOf = (user: SessionUser) => ({ organisationId: user.organisationId, userId: user.id });
@@ -25,6 +25,7 @@ export async function refusePermit({ user, site, resource, input: { reason } }: 
       const scope = await listPermitMembers({ permitId: locked.id }, tx);
       const requester = await getPermitRequester({ userId: locked.requestedBy }, tx);
       const mail = permitRefusedEmail({
+        reference: requestReference({ requestedByName: requester?.name, requestedAt: locked.requestedAt }, site.timezone),
         kindLabel: PERMIT_KIND_LABELS[locked.kind],
         siteName: site.name,
         scope: scopeWords(scope.length, zonesOf(scope)),

@@ -11,6 +11,7 @@ import { permitNumberLabel } from "@/lib/validations/permit";
 import { issuingAuthority, ownRequestReason } from "./authority";
 import type { UnitSystem } from "./format";
 import { evaluatePermit } from "./preconditions";
+import { requestReference } from "./words";
 
 /** Everything recorded about a permit, evaluated against the preconditions at `now`. Null: no such permit. */
 export async function permitRecord(permitId: string, now = new Date()) {
@@ -83,6 +84,8 @@ export function permitJson(d: PermitDetail) {
     kind: p.kind,
     number: p.number,
     numberLabel: d.numberLabel,
+    /** Who asked and when, in the site's time zone: the request's reference before (and after) it has a number. */
+    requestReference: requestReference({ requestedByName: d.view.requestedByName, requestedAt: p.requestedAt }, d.timeZone),
     status: p.status,
     scheme: d.view.schemeReference ? { id: p.schemeId, reference: d.view.schemeReference, category: d.view.schemeCategory, hasCertificate: !!d.view.schemeCertificateKey } : null,
     zone: d.view.zoneName ? { id: p.zoneId, name: d.view.zoneName } : null,

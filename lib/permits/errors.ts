@@ -6,7 +6,8 @@ import { getPermitView } from "@/db/queries/permits";
 import { AppError, ConflictError, NotFoundError } from "@/lib/errors";
 import { PERMIT_STATUS_LABELS } from "@/lib/labels";
 import { permitNumberLabel } from "@/lib/validations/permit";
-import { fmtDateTime, type UnitSystem } from "./format";
+import { formatDateTime } from "@/lib/format-date";
+import type { UnitSystem } from "./format";
 import type { Evaluation } from "./preconditions";
 
 /** 422 listing every reason a permit cannot be issued, per member, in words. */
@@ -27,7 +28,7 @@ export async function alreadyDecided(permitId: string, tx: DbOrTx) {
   const v = await getPermitView({ permitId }, tx);
   if (!v) return new NotFoundError("That permit");
   const p = v.permit;
-  const when = (d: Date | null) => fmtDateTime(d, v.siteTimezone, v.siteUnitSystem as UnitSystem);
+  const when = (d: Date | null) => formatDateTime(d, v.siteTimezone);
   if (p.status === "issued" || p.status === "closed" || p.status === "expired")
     return new ConflictError(
       `This request has already been issued as ${permitNumberLabel(p.kind, p.number)} by ${v.approvedByName ?? "someone else"} at ${when(p.issuedAt)}; nothing was changed.`,

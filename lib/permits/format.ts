@@ -1,5 +1,6 @@
 // How permits show numbers and times: the site's unit system and time zone, with units always written.
 import { formatForceFor, formatLengthFor, formatUtilisation, type UnitSystem } from "@/lib/client/format";
+import { formatDateTime, formatDuration } from "@/lib/format-date";
 
 export type { UnitSystem };
 
@@ -8,24 +9,12 @@ export const fmtForce = formatForceFor;
 export const fmtLength = formatLengthFor;
 export const fmtUtilisation = formatUtilisation;
 
-export function fmtDateTime(d: Date | string | null | undefined, timeZone: string, units: UnitSystem = "si"): string {
-  if (!d) return "—";
-  const date = typeof d === "string" ? new Date(d) : d;
-  if (Number.isNaN(date.getTime())) return "—";
-  return new Intl.DateTimeFormat(units === "us" ? "en-US" : "en-GB", {
-    timeZone,
-    day: "numeric",
-    month: "short",
-    year: "numeric",
-    hour: "2-digit",
-    minute: "2-digit",
-    timeZoneName: "short",
-  }).format(date);
-}
+// Dates and times are written by lib/format-date.ts, the same on every screen, PDF and e-mail.
 
-export function fmtDate(d: Date | string | null | undefined, timeZone: string, units: UnitSystem = "si"): string {
-  if (!d) return "—";
-  const date = typeof d === "string" ? new Date(d) : d;
-  if (Number.isNaN(date.getTime())) return "—";
-  return new Intl.DateTimeFormat(units === "us" ? "en-US" : "en-GB", { timeZone, day: "numeric", month: "short", year: "numeric" }).format(date);
+/** "9 Dec 2026, 09:30 GMT (7 days)": when a permit ends and how long it runs from its issue, in days and hours. */
+export function fmtValidUntil(issuedAt: Date | string | null | undefined, validUntil: Date | string | null | undefined, timeZone: string): string {
+  const until = formatDateTime(validUntil, timeZone);
+  if (!issuedAt || !validUntil || until === "—") return until;
+  const ms = new Date(validUntil).getTime() - new Date(issuedAt).getTime();
+  return Number.isFinite(ms) && ms > 0 ? `${until} (${formatDuration(ms)})` : until;
 }

@@ -15,12 +15,12 @@ import { MAX_VALIDITY_DAYS, PERMIT_KIND_LABELS, permitNumberLabel, type PermitIs
 import { authorityFor } from "./authority";
 import { detailFor, permitRecord } from "./detail";
 import { alreadyDecided, PreconditionError } from "./errors";
-import { fmtDateTime, type UnitSystem } from "./format";
+import { fmtValidUntil, type UnitSystem } from "./format";
 import { renderAndStorePermitPdf } from "./pdf";
 import { evaluatePermit } from "./preconditions";
 import { transitionPermit } from "./transition";
 import { permitUrl } from "./urls";
-import { DAY, HOUR, scopeWords, zonesOf } from "./words";
+import { DAY, HOUR, requestReference, scopeWords, zonesOf } from "./words";
 
 type Ctx = { req: Request; user: SessionUser; site: Site; roles: SiteRole[]; resource: Permit; input: PermitIssueInput };
 
@@ -68,11 +68,12 @@ export async function issuePermit(ctx: Ctx, nowArg?: Date) {
       const zoneNames = zonesOf(scope);
       const facts = {
         numberLabel: label,
+        request: requestReference({ requestedByName: requester?.name, requestedAt: locked.requestedAt }, site.timezone),
         kindLabel: PERMIT_KIND_LABELS[locked.kind],
         siteName: site.name,
         scope: scopeWords(scope.length, zoneNames),
         zones: zoneNames.join(", ") || "—",
-        validUntil: fmtDateTime(validUntil, site.timezone, units),
+        validUntil: fmtValidUntil(now, validUntil, site.timezone),
         issuedBy: user.name,
         conditions,
         url: permitUrl(locked.siteId, locked.id),

@@ -9,7 +9,8 @@ import { renderPermitPdf, type PermitPdfData } from "@/lib/pdf/permit";
 import { putObject } from "@/lib/storage";
 import { PERMIT_KIND_LABELS } from "@/lib/validations/permit";
 import { permitRecord, type PermitRecord } from "./detail";
-import { fmtDateTime, fmtForce, fmtLength, fmtUtilisation, type UnitSystem } from "./format";
+import { formatDateTime } from "@/lib/format-date";
+import { fmtForce, fmtValidUntil, fmtLength, fmtUtilisation, type UnitSystem } from "./format";
 import { evidenceFinding } from "./preconditions";
 import { permitUrl } from "./urls";
 
@@ -39,11 +40,11 @@ export function permitPdfData(r: PermitRecord): PermitPdfData | null {
     zones,
     schemes,
     requestedBy: v.requestedByName,
-    requestedAt: fmtDateTime(p.requestedAt, tz, units),
+    requestedAt: formatDateTime(p.requestedAt, tz),
     requestNote: p.requestNote,
     issuedBy: v.approvedByName ?? "—",
-    issuedAt: fmtDateTime(p.issuedAt, tz, units),
-    validUntil: fmtDateTime(p.validUntil, tz, units),
+    issuedAt: formatDateTime(p.issuedAt, tz),
+    validUntil: fmtValidUntil(p.issuedAt, p.validUntil, tz),
     conditions: p.conditions,
     evidence: p.kind === "strike" ? evidenceFinding(p.evidence).text : null,
     members: scope.map((m) => ({
@@ -57,7 +58,7 @@ export function permitPdfData(r: PermitRecord): PermitPdfData | null {
     })),
     units: units === "us" ? { length: "in", force: "kip" } : { length: "mm", force: "kN" },
     permitUrl: permitUrl(p.siteId, p.id),
-    generatedAt: fmtDateTime(new Date(), tz, units),
+    generatedAt: formatDateTime(new Date(), tz),
   };
 }
 

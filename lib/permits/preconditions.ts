@@ -2,7 +2,8 @@
 // Pure: the review page, the issue use case and the tests all read the same findings.
 import type { ReviewMember } from "@/db/queries/permits";
 import { strikeEvidenceSchema, permitNumberLabel } from "@/lib/validations/permit";
-import { fmtDate, fmtForce, fmtUtilisation, type UnitSystem } from "./format";
+import { formatDate } from "@/lib/format-date";
+import { fmtForce, fmtUtilisation, type UnitSystem } from "./format";
 
 export type FindingKey = "state" | "check" | "photos" | "inspection" | "scheme";
 export type Finding = { key: FindingKey | "scope" | "certificate" | "scheme-validity" | "evidence"; ok: boolean; text: string };
@@ -72,11 +73,11 @@ function loadFindings(m: ReviewMember, { now, units, timeZone }: EvaluateInput):
 
   const i = m.latestInspection;
   if (!i) out.push({ key: "inspection", ok: false, text: "Has no inspection recorded" });
-  else if (i.result !== "pass") out.push({ key: "inspection", ok: false, text: `Latest inspection (${fmtDate(i.inspectedAt, timeZone, units)}) failed` });
-  else if (!i.nextDueAt) out.push({ key: "inspection", ok: false, text: `Latest inspection (${fmtDate(i.inspectedAt, timeZone, units)}) has no next due date` });
+  else if (i.result !== "pass") out.push({ key: "inspection", ok: false, text: `Latest inspection (${formatDate(i.inspectedAt, timeZone)}) failed` });
+  else if (!i.nextDueAt) out.push({ key: "inspection", ok: false, text: `Latest inspection (${formatDate(i.inspectedAt, timeZone)}) has no next due date` });
   else if (new Date(i.nextDueAt).getTime() <= now.getTime())
-    out.push({ key: "inspection", ok: false, text: `Inspection overdue since ${fmtDate(i.nextDueAt, timeZone, units)}` });
-  else out.push({ key: "inspection", ok: true, text: `Inspected ${fmtDate(i.inspectedAt, timeZone, units)}, passed; next due ${fmtDate(i.nextDueAt, timeZone, units)}` });
+    out.push({ key: "inspection", ok: false, text: `Inspection overdue since ${formatDate(i.nextDueAt, timeZone)}` });
+  else out.push({ key: "inspection", ok: true, text: `Inspected ${formatDate(i.inspectedAt, timeZone)}, passed; next due ${formatDate(i.nextDueAt, timeZone)}` });
 
   return out;
 }
@@ -137,7 +138,7 @@ export function evaluatePermit(input: EvaluateInput): Evaluation {
         permit.push({
           key: "certificate",
           ok: true,
-          text: `Scheme ${s.reference} (category ${s.category}) has its design check certificate: checked by ${cert.checkerName} on ${cert.documentDate ? fmtDate(cert.documentDate, input.timeZone, input.units) : "—"}`,
+          text: `Scheme ${s.reference} (category ${s.category}) has its design check certificate: checked by ${cert.checkerName} on ${cert.documentDate ? formatDate(cert.documentDate, input.timeZone) : "—"}`,
         });
       else
         permit.push({
@@ -146,7 +147,7 @@ export function evaluatePermit(input: EvaluateInput): Evaluation {
           text: s.category >= 1 ? `Scheme ${s.reference} (category ${s.category}) has its design check certificate` : `Scheme ${s.reference} is category 0: no separate check certificate needed`,
         });
       if (s.validUntil && s.validUntil.getTime() <= input.now.getTime())
-        permit.push({ key: "scheme-validity", ok: false, text: `Scheme ${s.reference} was valid until ${fmtDate(s.validUntil, input.timeZone, input.units)}` });
+        permit.push({ key: "scheme-validity", ok: false, text: `Scheme ${s.reference} was valid until ${formatDate(s.validUntil, input.timeZone)}` });
     }
   } else {
     permit.push(evidenceFinding(input.evidence));

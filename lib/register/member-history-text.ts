@@ -4,6 +4,7 @@
 import { endConditionInfo } from "@/lib/engineering/effective-length";
 import type { EndCondition } from "@/lib/engineering/types";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
+import { formatDate } from "@/lib/format-date";
 import { formatFeetInches, formatForce, formatLength } from "@/lib/units";
 
 export type AuditRow = { id: number | string; action: string; before: unknown; after: unknown; at: Date; actorName: string | null };
@@ -44,9 +45,6 @@ const FIELD_LABELS: Record<string, string> = {
 /** Kept from the record but said through the check sentence, not one by one. */
 const CHECK_KEYS = new Set(["latestCheckId", "capacityN", "utilisation", "checkPass", "check"]);
 
-export function dayText(d: Date, timeZone: string) {
-  return new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone }).format(d);
-}
 
 const obj = (v: unknown) => (v && typeof v === "object" ? (v as Record<string, unknown>) : {});
 const statusLabel = (v: unknown) => MEMBER_STATUS_LABELS[v as keyof typeof MEMBER_STATUS_LABELS] ?? "an unknown status";
@@ -98,7 +96,7 @@ function checkSentence(c: Record<string, unknown>): string | null {
 
 function inspectionPhrase(id: unknown, ctx: Ctx): string {
   const i = ctx.inspections.find((x) => x.id === id);
-  return i ? ` after the ${i.result === "pass" ? "passing " : "failed "}inspection on ${dayText(i.inspectedAt, ctx.timeZone)}` : " after an inspection";
+  return i ? ` after the ${i.result === "pass" ? "passing " : "failed "}inspection on ${formatDate(i.inspectedAt, ctx.timeZone)}` : " after an inspection";
 }
 
 function permitPhrase(label: unknown): string {
@@ -157,7 +155,7 @@ export function sentence(row: AuditRow, ctx: Ctx): { summary: string; details: s
     case "member.struck":
       return { summary: `Struck under ${permitPhrase(after.permit)}: the member is no longer standing.`, details: [] };
     case "member.photo_added": {
-      const taken = after.takenAt ? ` (taken ${dayText(new Date(String(after.takenAt)), ctx.timeZone)})` : "";
+      const taken = after.takenAt ? ` (taken ${formatDate(new Date(String(after.takenAt)), ctx.timeZone)})` : "";
       return { summary: `Photo added${taken}.`, details: [] };
     }
     default: {

@@ -10,7 +10,7 @@
 // may always take a draft or submitted member out of service: stopping work is never refused.
 import type { Member } from "@/db/schema";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
-import { formatWhen } from "@/lib/alerts/format";
+import { formatDateTime } from "@/lib/format-date";
 
 type MemberStatus = Member["status"];
 
@@ -39,7 +39,7 @@ export function statusEditConflict(args: {
   if (current === "out_of_service") {
     const failed = lastInspection?.result === "fail";
     const why = failed
-      ? `${tag} is out of service after a failed inspection on ${formatWhen(lastInspection.inspectedAt, timeZone)}${lastInspection.inspectorName ? ` by ${lastInspection.inspectorName}` : ""}`
+      ? `${tag} is out of service after a failed inspection on ${formatDateTime(lastInspection.inspectedAt, timeZone)}${lastInspection.inspectorName ? ` by ${lastInspection.inspectorName}` : ""}`
       : `${tag} is out of service`;
     return `${why}. It returns to service only through a passing inspection, not by editing: put right what is wrong, then record the inspection on its inspection page.`;
   }

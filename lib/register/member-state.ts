@@ -2,7 +2,7 @@
 // A member out of service after a failed inspection says so above its capacity result, with the
 // date, the inspector and what failed, so nobody reads a passing check as "safe to load".
 import type { Member } from "@/db/schema";
-import { formatWhen } from "@/lib/alerts/format";
+import { formatDateTime } from "@/lib/format-date";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
 import type { HistoryEntry } from "./member-history-text";
 
@@ -32,7 +32,7 @@ export function memberState(args: {
   const failingLine = failing
     ? `It also fails its capacity check${member.utilisation != null ? ` (utilisation ${Math.round(member.utilisation * 100)} %)` : ""}.`
     : null;
-  const when = (d: Date) => formatWhen(d, timeZone);
+  const when = (d: Date) => formatDateTime(d, timeZone);
 
   switch (member.status) {
     case "out_of_service": {

@@ -27,7 +27,7 @@ describe("statusEditConflict", () => {
       lastInspection: { result: "fail", inspectedAt: at, inspectorName: "Sam Inspector" },
     });
     expect(m).toBe(
-      "P1 is out of service after a failed inspection on 2 Dec 2026, 09:30 by Sam Inspector. It returns to service only through a passing inspection, not by editing: put right what is wrong, then record the inspection on its inspection page.",
+      "P1 is out of service after a failed inspection on 2 Dec 2026, 09:30 GMT by Sam Inspector. It returns to service only through a passing inspection, not by editing: put right what is wrong, then record the inspection on its inspection page.",
     );
   });
 });

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { Forbidden } from "@/components/forbidden";
 import { Icon } from "@/components/icons";
 import { countUnreadAlerts, listSiteAlerts } from "@/db/queries/alerts";
-import { formatWhen } from "@/lib/alerts/format";
+import { formatDateTime } from "@/lib/format-date";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { AlertKindBadge } from "./alert-kind-badge";
 import { MarkAllRead, MarkRead } from "./mark-read";
@@ -82,7 +82,7 @@ export default async function AlertsPage({
                       <span aria-hidden>●</span> Unread
                     </span>
                   )}
-                  <span className="text-sm text-ink-soft">{formatWhen(a.createdAt, site.timezone)}</span>
+                  <span className="text-sm text-ink-soft">{formatDateTime(a.createdAt, site.timezone)}</span>
                 </p>
                 <p className={`mt-1 ${a.read ? "" : "font-bold"}`}>{a.title}</p>
                 <p className="text-sm">{a.body}</p>

@@ -5,7 +5,7 @@ import { Icon } from "@/components/icons";
 import { PrintButton } from "@/components/print-button";
 import { ButtonLink } from "@/components/ui/button";
 import { listInspectionRound, listRecentTriggers, listRoundFilters } from "@/db/queries/inspections";
-import { formatWhen } from "@/lib/alerts/format";
+import { formatDateTime } from "@/lib/format-date";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { isUuid } from "@/lib/authz";
 import { INSPECTION_STATE_LABELS, INSPECTION_STATE_ORDER, NEEDS_DOING, orderRound, type InspectionState } from "@/lib/inspections/due";
@@ -132,10 +132,10 @@ export default async function InspectionRoundPage({
                     {r.due.state === "never"
                       ? "No inspection recorded yet."
                       : r.due.state === "failed"
-                        ? `Failed ${formatWhen(r.lastInspectedAt!, tz)}; out of service until it passes.`
+                        ? `Failed ${formatDateTime(r.lastInspectedAt!, tz)}; out of service until it passes.`
                         : r.due.cause === "trigger" && r.due.state === "due_now"
                           ? `Due now — after: ${r.triggerReason}`
-                          : `${r.due.state === "overdue" ? "Was due" : "Due"} ${formatWhen(r.due.dueAt!, tz)} · last passed ${formatWhen(r.lastInspectedAt!, tz)}`}
+                          : `${r.due.state === "overdue" ? "Was due" : "Due"} ${formatDateTime(r.due.dueAt!, tz)} · last passed ${formatDateTime(r.lastInspectedAt!, tz)}`}
                   </p>
                 </div>
                 <ButtonLink href={`/sites/${site.id}/members/${r.memberId}/inspect${roundQs}`} variant={NEEDS_DOING.includes(r.due.state) ? "primary" : "secondary"} aria-label={`Inspect ${r.tag}`} className="print:hidden">
@@ -169,7 +169,7 @@ export default async function InspectionRoundPage({
           <ul className="text-sm">
             {triggers.map((t) => (
               <li key={t.id}>
-                {formatWhen(t.triggeredAt, tz)} — {t.zoneName ?? "whole site"}: {t.reason} ({t.triggeredByName ?? "unknown"})
+                {formatDateTime(t.triggeredAt, tz)} — {t.zoneName ?? "whole site"}: {t.reason} ({t.triggeredByName ?? "unknown"})
               </li>
             ))}
           </ul>

@@ -20,6 +20,7 @@ export default async function RegisterPage({ params }: { params: Promise<{ siteI
           siteId={site.id}
           siteName={site.name}
           unitSystem={site.unitSystem}
+          timeZone={site.timezone}
           options={options}
           canImport={may("importMembers")}
           canLog={may("logMember")}

@@ -8,11 +8,11 @@ import type { MemberListItem } from "@/db/queries/member-list";
 import { formatForceFor, formatLengthFor, formatUtilisation, type UnitSystem } from "@/lib/client/format";
 import { CheckBadge, StatusBadge } from "./member-badges";
 import { SortIcon, UtilBar, utilClass } from "./register-cells";
-import { formatUpdated } from "./register-format";
+import { formatDateTime } from "@/lib/format-date";
 
 type ColumnMeta = { numeric?: boolean; className?: string };
 
-export function useRegisterColumns({ siteId, unitSystem }: { siteId: string; unitSystem: UnitSystem }) {
+export function useRegisterColumns({ siteId, unitSystem, timeZone }: { siteId: string; unitSystem: UnitSystem; timeZone: string }) {
   return useMemo<ColumnDef<MemberListItem>[]>(
     () => [
       {
@@ -100,9 +100,9 @@ export function useRegisterColumns({ siteId, unitSystem }: { siteId: string; uni
       },
       { id: "scheme", header: "Scheme", enableSorting: false, cell: ({ row }) => row.original.scheme?.reference ?? "—" },
       { id: "photos", header: "Photos", enableSorting: false, meta: { numeric: true }, cell: ({ row }) => row.original.photoCount },
-      { id: "updated", accessorFn: (r) => r.updatedAt, header: "Updated", cell: ({ row }) => <span className="whitespace-nowrap">{formatUpdated(row.original.updatedAt)}</span> },
+      { id: "updated", accessorFn: (r) => r.updatedAt, header: "Updated", cell: ({ row }) => <span className="whitespace-nowrap">{formatDateTime(row.original.updatedAt, timeZone)}</span> },
     ],
-    [siteId, unitSystem],
+    [siteId, unitSystem, timeZone],
   );
 }
 

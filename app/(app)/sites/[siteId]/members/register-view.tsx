@@ -33,6 +33,7 @@ type Props = {
   siteId: string;
   siteName: string;
   unitSystem: UnitSystem;
+  timeZone: string;
   options: FilterOptions;
   canImport: boolean;
   canLog: boolean;
@@ -51,7 +52,7 @@ export function RegisterView(props: Props) {
 
 const isFiltered = (query: Record<string, string>) => Object.keys(query).some((k) => !["sort", "dir", "limit", "cursor"].includes(k));
 
-function Register({ siteId, siteName, unitSystem, options, canImport, canLog, canRequestPermit, canInspect }: Props) {
+function Register({ siteId, siteName, unitSystem, timeZone, options, canImport, canLog, canRequestPermit, canInspect }: Props) {
   const { query, cols, update, clear } = useRegisterUrl();
   const qs = new URLSearchParams(query).toString();
   const queryClient = useQueryClient();
@@ -84,7 +85,7 @@ function Register({ siteId, siteName, unitSystem, options, canImport, canLog, ca
 
   const shownColumns = parseColumns(cols);
   const columnVisibility: VisibilityState = Object.fromEntries(OPTIONAL_COLUMNS.map((c) => [c.id, shownColumns.includes(c.id)]));
-  const columns = useRegisterColumns({ siteId, unitSystem });
+  const columns = useRegisterColumns({ siteId, unitSystem, timeZone });
 
   const table = useReactTable({
     data: data?.items ?? [],

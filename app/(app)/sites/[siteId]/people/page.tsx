@@ -4,7 +4,7 @@ import { Forbidden } from "@/components/forbidden";
 import { Icon } from "@/components/icons";
 import { listPendingInvitations } from "@/db/queries/invitations";
 import { listSitePeople } from "@/db/queries/memberships";
-import { formatDateTime } from "@/lib/auth/format";
+import { formatDateTime } from "@/lib/format-date";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { ALL_ROLES, ROLE_LABELS, rolesAllowPure } from "@/lib/permissions";
 

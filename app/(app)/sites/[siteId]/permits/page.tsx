@@ -6,9 +6,11 @@ import { ButtonLink, buttonClass } from "@/components/ui/button";
 import { countPermitsAwaitingReview, listPermits } from "@/db/queries/permits";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { PERMIT_STATUS_LABELS } from "@/lib/labels";
-import { fmtDateTime, type UnitSystem } from "@/lib/permits/format";
+import { formatDateTime } from "@/lib/format-date";
+import type { UnitSystem } from "@/lib/permits/format";
 import { PERMIT_KIND_LABELS, permitListQuerySchema, permitNumberLabel, type PermitListQuery } from "@/lib/validations/permit";
 import { PermitStatus } from "./permit-status";
+import { requestReference } from "@/lib/permits/words";
 
 export const metadata: Metadata = { title: "Permits" };
 
@@ -109,7 +111,7 @@ export default async function PermitsPage({ params, searchParams }: { params: Pr
               <li key={r.id}>
                 <Link href={`${base}/${r.id}`} className="flex flex-col gap-1 rounded-xl border-2 border-ink/15 bg-paper-raised p-3">
                   <span className="flex items-center justify-between gap-2">
-                    <span className="font-bold">{permitNumberLabel(r.kind, r.number) ?? `${PERMIT_KIND_LABELS[r.kind]} request`}</span>
+                    <span className="font-bold">{permitNumberLabel(r.kind, r.number) ?? requestReference(r, site.timezone)}</span>
                     <PermitStatus status={r.status} />
                   </span>
                   <span className="text-sm">
@@ -117,7 +119,7 @@ export default async function PermitsPage({ params, searchParams }: { params: Pr
                     {r.zoneName ? ` · ${r.zoneName}` : ""}
                   </span>
                   <span className="text-sm text-ink-soft">
-                    {r.validUntil ? `Valid until ${fmtDateTime(r.validUntil, site.timezone, units)}` : `Requested ${fmtDateTime(r.requestedAt, site.timezone, units)} by ${r.requestedByName}`}
+                    {r.validUntil ? `Valid until ${formatDateTime(r.validUntil, site.timezone)}` : `Requested ${formatDateTime(r.requestedAt, site.timezone)} by ${r.requestedByName}`}
                   </span>
                 </Link>
               </li>
@@ -150,7 +152,7 @@ export default async function PermitsPage({ params, searchParams }: { params: Pr
                   <tr key={r.id} className="border-t border-ink/10 hover:bg-paper-sunk">
                     <td className="p-2 font-bold">
                       <Link href={`${base}/${r.id}`} className="underline-offset-4 hover:underline">
-                        {permitNumberLabel(r.kind, r.number) ?? "Request"}
+                        {permitNumberLabel(r.kind, r.number) ?? requestReference(r, site.timezone)}
                       </Link>
                     </td>
                     <td className="p-2">{PERMIT_KIND_LABELS[r.kind]}</td>
@@ -159,10 +161,10 @@ export default async function PermitsPage({ params, searchParams }: { params: Pr
                     </td>
                     <td className="tabular p-2 text-right">{r.scopeSize}</td>
                     <td className="tabular p-2">
-                      {fmtDateTime(r.requestedAt, site.timezone, units)}
+                      {formatDateTime(r.requestedAt, site.timezone)}
                       <div className="text-sm text-ink-soft">{r.requestedByName}</div>
                     </td>
-                    <td className="tabular p-2">{fmtDateTime(r.validUntil, site.timezone, units)}</td>
+                    <td className="tabular p-2">{formatDateTime(r.validUntil, site.timezone)}</td>
                     <td className="p-2 text-sm">
                       {r.zoneName ?? "Several zones"}
                       <div className="text-ink-soft">{r.schemeReference ?? "Several schemes"}</div>

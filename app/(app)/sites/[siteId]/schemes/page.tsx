@@ -1,3 +1,4 @@
+import { formatDate } from "@/lib/format-date";
 import type { Metadata } from "next";
 import Link from "next/link";
 import { Forbidden } from "@/components/forbidden";
@@ -44,7 +45,7 @@ export default async function SchemesPage({ params }: { params: Promise<{ siteId
                   </span>
                   <span className={`flex items-center gap-1 text-sm font-semibold ${expired ? "text-bad" : "text-ok"}`}>
                     <Icon name={expired ? "bad" : "ok"} className="h-4 w-4" />
-                    {s.validUntil ? `${expired ? "Expired" : "Valid until"} ${s.validUntil.toLocaleDateString("en-GB", { timeZone: site.timezone })}` : "No end date"}
+                    {s.validUntil ? `${expired ? "Expired" : "Valid until"} ${formatDate(s.validUntil, site.timezone)}` : "No end date"}
                   </span>
                 </Link>
               </li>

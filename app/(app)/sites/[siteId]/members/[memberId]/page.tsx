@@ -16,7 +16,7 @@ import { isUuid } from "@/lib/authz";
 import { capacityCurve } from "@/lib/engineering";
 import { endConditionInfo } from "@/lib/engineering/effective-length";
 import type { Step } from "@/lib/engineering";
-import { formatWhen } from "@/lib/alerts/format";
+import { formatDate, formatDateTime } from "@/lib/format-date";
 import { INSPECTION_RESULT_LABELS } from "@/lib/inspections/checklist";
 import { MEMBER_STATUS_LABELS, PERMIT_STATUS_LABELS } from "@/lib/labels";
 import { buildCheckRequest } from "@/lib/register/check-request";
@@ -82,7 +82,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
   const forceUnit = us ? "kip" : "kN";
   const len = (mm: number | null) => (mm == null ? "—" : us ? formatFeetInches(mm) : formatLength(mm));
   const latest = detail.check;
-  const when = (d: Date) => formatWhen(d, site.timezone);
+  const when = (d: Date) => formatDateTime(d, site.timezone);
 
   // The curve: the same request as the check, over the type's range (or around the member's length).
   let curve: { lengthMm: number; capacityN: number }[] = [];
@@ -251,9 +251,9 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
             {photos.map((p) => (
               <li key={p.id}>
                 <a href={p.displayUrl ?? "#"} target="_blank" rel="noreferrer" className="block">
-                  {p.thumbnailUrl ? <img src={p.thumbnailUrl} alt={`Photo of ${member.tag}${p.takenAt ? ` taken ${formatWhen(p.takenAt, "UTC")}` : ""}`} className="aspect-square w-full rounded-lg object-cover" /> : null}
+                  {p.thumbnailUrl ? <img src={p.thumbnailUrl} alt={`Photo of ${member.tag}${p.takenAt ? ` taken ${formatDate(p.takenAt, "UTC")}` : ""}`} className="aspect-square w-full rounded-lg object-cover" /> : null}
                 </a>
-                <p className="text-xs text-ink-soft">{p.takenAt ? `Taken ${formatWhen(p.takenAt, "UTC")}` : `Uploaded ${when(p.createdAt)}`}</p>
+                <p className="text-xs text-ink-soft">{p.takenAt ? `Taken ${formatDate(p.takenAt, "UTC")}` : `Uploaded ${when(p.createdAt)}`}</p>
               </li>
             ))}
           </ul>

@@ -9,7 +9,9 @@ import { loadSitePage } from "@/lib/auth/site-page";
 import { NotFoundError } from "@/lib/errors";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
 import { permitDetail, type PermitDetail } from "@/lib/permits";
-import { fmtDateTime, fmtForce, fmtLength, fmtUtilisation } from "@/lib/permits/format";
+import { formatDateTime } from "@/lib/format-date";
+import { requestReference } from "@/lib/permits/words";
+import { fmtForce, fmtValidUntil, fmtLength, fmtUtilisation } from "@/lib/permits/format";
 import { evidenceFinding as describeEvidence } from "@/lib/permits/preconditions";
 import type { Finding } from "@/lib/permits/preconditions";
 import { MAX_VALIDITY_DAYS, PERMIT_KIND_LABELS } from "@/lib/validations/permit";
@@ -241,8 +243,8 @@ export default async function PermitPage({ params }: { params: Promise<{ siteId:
   const p = d.permit;
   const v = d.view;
   const tz = site.timezone;
-  const when = (x: Date | null) => fmtDateTime(x, tz, d.units);
-  const title = d.numberLabel ?? `${PERMIT_KIND_LABELS[p.kind]} — request`;
+  const when = (x: Date | null) => formatDateTime(x, tz);
+  const title = d.numberLabel ?? `${PERMIT_KIND_LABELS[p.kind]} — ${requestReference({ requestedByName: v.requestedByName, requestedAt: p.requestedAt }, tz)}`;
   const evidenceFinding = p.kind === "strike" ? d.evaluation.permit.find((f) => f.key === "evidence") : undefined;
   const waiting = (p.status === "issued" && !p.pdfKey) || d.emails.some((e) => e.waiting || e.status === "queued" || e.status === "sending");
 
@@ -264,7 +266,7 @@ export default async function PermitPage({ params }: { params: Promise<{ siteId:
   ];
   if (p.requestNote) facts.push(["Note", p.requestNote]);
   if (p.issuedAt) facts.push(["Issued", `${when(p.issuedAt)} by ${v.approvedByName ?? "—"}`]);
-  if (p.validUntil) facts.push(["Valid until", when(p.validUntil)]);
+  if (p.validUntil) facts.push(["Valid until", fmtValidUntil(p.issuedAt, p.validUntil, tz)]);
   if (p.issuedAt) facts.push(["Conditions", p.conditions ?? "None beyond the design and this permit"]);
   if (p.status === "refused") facts.push(["Refused", `${when(p.closedAt)} by ${v.closedByName ?? "—"}: ${p.refusedReason}`]);
   if (p.status === "withdrawn") facts.push(["Withdrawn", `${when(p.closedAt)} by ${v.closedByName ?? "—"}: ${p.withdrawnReason}`]);

@@ -10,6 +10,7 @@ import { apiJson } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { Field, describedBy, inputClass } from "@/components/ui/field";
 import { permitReasonSchema } from "@/lib/validations/permit";
+import { formatHours } from "@/lib/format-date";
 
 function ErrorBox({ message }: { message: string | null }) {
   if (!message) return null;
@@ -64,7 +65,7 @@ export function IssuePanel({ permitId, defaultHours, maxDays, canIssue, blockers
   const e = formState.errors;
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Issue the permit">
-      <Field id="validUntil" label="Valid until" error={e.validUntil?.message} hint={`Default from the site's settings: ${defaultHours} hours. At most ${maxDays} days.`}>
+      <Field id="validUntil" label="Valid until" error={e.validUntil?.message} hint={`Default from the site's settings: ${formatHours(defaultHours)}. At most ${maxDays} days.`}>
         <input
           id="validUntil"
           type="datetime-local"

@@ -6,7 +6,8 @@ import { listSiteRoleEmails } from "@/db/queries/memberships";
 import { listDelegations } from "@/db/queries/permits";
 import { listZones } from "@/db/queries/zones";
 import { loadSitePage } from "@/lib/auth/site-page";
-import { fmtDateTime, type UnitSystem } from "@/lib/permits/format";
+import { formatDateTime } from "@/lib/format-date";
+import type { UnitSystem } from "@/lib/permits/format";
 import { DelegationForm, RevokeButton } from "./delegation-form";
 
 export const metadata: Metadata = { title: "Supervisors' issuing scope" };
@@ -47,8 +48,8 @@ export default async function DelegationsPage({ params }: { params: Promise<{ si
                   <p className="font-bold">{r.userName}</p>
                   <p>{r.zoneIds.map((z) => zoneName.get(z) ?? "a removed zone").join(", ")}</p>
                   <p className="text-sm text-ink-soft">
-                    Until {fmtDateTime(r.validUntil, site.timezone, units)} · given by {r.grantedByName} on {fmtDateTime(r.createdAt, site.timezone, units)}
-                    {r.revokedAt ? ` · revoked ${fmtDateTime(r.revokedAt, site.timezone, units)}` : ""}
+                    Until {formatDateTime(r.validUntil, site.timezone)} · given by {r.grantedByName} on {formatDateTime(r.createdAt, site.timezone)}
+                    {r.revokedAt ? ` · revoked ${formatDateTime(r.revokedAt, site.timezone)}` : ""}
                   </p>
                   <p className={`mt-1 inline-flex items-center gap-1 text-sm font-semibold ${active ? "text-ok" : "text-ink-soft"}`}>
                     <Icon name={active ? "ok" : "bad"} className="h-4 w-4" /> {active ? "In force" : r.revokedAt ? "Revoked" : "Expired"}

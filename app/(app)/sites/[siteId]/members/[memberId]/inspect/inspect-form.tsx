@@ -14,6 +14,7 @@ import { newClientId, submitOrQueue } from "@/lib/client/outbox/submit";
 import { PhotoUploader, type QueuedFile, type UploadedPhoto } from "@/components/register/photo-uploader";
 import { Button, ButtonLink } from "@/components/ui/button";
 import { describedBy } from "@/components/ui/field";
+import { formatDateTime } from "@/lib/format-date";
 import { INSPECTION_CHECKS } from "@/lib/inspections/checklist";
 import { inspectionSchema, type InspectionInput } from "@/lib/validations/inspection";
 
@@ -59,8 +60,8 @@ type Saved = { result: "pass" | "fail"; memberStatus: string; removedFromPermits
 type NextDue = { memberId: string; tag: string } | null;
 
 export function InspectForm({
-  siteId, memberId, tag, status, plumbToleranceMm, intervalDays, next, roundQuery, unitSystem = "si",
-}: { siteId: string; memberId: string; tag: string; status: string; plumbToleranceMm: number; intervalDays: number; next: NextDue; roundQuery: string; unitSystem?: "si" | "us" }) {
+  siteId, memberId, tag, status, plumbToleranceMm, intervalDays, next, roundQuery, timeZone, unitSystem = "si",
+}: { siteId: string; memberId: string; tag: string; status: string; plumbToleranceMm: number; intervalDays: number; next: NextDue; roundQuery: string; timeZone: string; unitSystem?: "si" | "us" }) {
   const us = unitSystem === "us";
   const [plumb, setPlumb] = useState<Plumb>(emptyPlumb());
   const router = useRouter();
@@ -212,7 +213,7 @@ export function InspectForm({
         {pass ? (
           <p>
             Next inspection due{" "}
-            {saved.nextDueAt ? new Date(saved.nextDueAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : `in ${intervalDays} days`}.
+            {saved.nextDueAt ? formatDateTime(saved.nextDueAt, timeZone) : `in ${intervalDays} days`}.
             {saved.memberStatus === "submitted" ? " The member is back in service (submitted); it needs a new permit before it is loaded." : ""}
           </p>
         ) : (

@@ -5,7 +5,7 @@ import { CautionNotice } from "@/components/caution-notice";
 import { Forbidden } from "@/components/forbidden";
 import { Icon } from "@/components/icons";
 import { getMemberForInspection, listInspectionRound, listInspections } from "@/db/queries/inspections";
-import { formatWhen } from "@/lib/alerts/format";
+import { formatDateTime } from "@/lib/format-date";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { isUuid } from "@/lib/authz";
 import { checkLabel } from "@/lib/inspections/checklist";
@@ -71,7 +71,7 @@ export default async function InspectPage({
         {state ? (
           <p className="mt-2 flex flex-wrap items-center gap-2">
             <InspectionStateBadge state={state.state} />
-            {state.dueAt && state.state !== "failed" ? <span className="text-sm">Due {formatWhen(state.dueAt, tz)}</span> : null}
+            {state.dueAt && state.state !== "failed" ? <span className="text-sm">Due {formatDateTime(state.dueAt, tz)}</span> : null}
             {round?.triggerReason && state.cause === "trigger" ? <span className="text-sm">After: {round.triggerReason}</span> : null}
           </p>
         ) : null}
@@ -91,6 +91,7 @@ export default async function InspectPage({
           plumbToleranceMm={site.plumbToleranceMm}
           intervalDays={site.inspectionIntervalDays}
           unitSystem={site.unitSystem}
+          timeZone={site.timezone}
           next={next}
           roundQuery={roundQuery}
         />
@@ -110,9 +111,9 @@ export default async function InspectPage({
               <li key={h.id} className="rounded-xl border-2 border-ink/15 bg-paper-raised p-3" data-testid="inspection-history-item">
                 <div className="flex flex-wrap items-center gap-2">
                   <ResultBadge result={h.result} />
-                  <span className="font-semibold">{formatWhen(h.inspectedAt, tz)}</span>
+                  <span className="font-semibold">{formatDateTime(h.inspectedAt, tz)}</span>
                   <span className="text-ink-soft">by {h.inspectorName ?? "unknown"}</span>
-                  {h.nextDueAt ? <span className="text-sm text-ink-soft">· next due {formatWhen(h.nextDueAt, tz)}</span> : null}
+                  {h.nextDueAt ? <span className="text-sm text-ink-soft">· next due {formatDateTime(h.nextDueAt, tz)}</span> : null}
                   {h.photoIds.length ? (
                     <span className="inline-flex items-center gap-1 text-sm text-ink-soft">
                       <Icon name="inspect" className="h-4 w-4" /> {h.photoIds.length} photo{h.photoIds.length === 1 ? "" : "s"}
