@@ -6,7 +6,7 @@ import { useEffect, useRef, useState } from "react";
 import { Icon } from "@/components/icons";
 import { Button } from "@/components/ui/button";
 import { serverReachable } from "@/lib/client/outbox/reachable";
-import { sendAll } from "@/lib/client/outbox/send";
+import { releaseStaleSending, sendAll } from "@/lib/client/outbox/send";
 import { removeItem, updateItem, type OutboxItem } from "@/lib/client/outbox/store";
 import { useOutbox } from "./use-outbox";
 
@@ -19,7 +19,8 @@ export function OutboxBadge() {
   const waiting = (items ?? []).some((i) => i.status === "waiting" || i.status === "sending");
   useEffect(() => {
     const go = () => void serverReachable().then((ok) => { if (ok) void sendAll(); });
-    go();
+    // An entry a reload cut off mid-send says "sending" until it is put back to waiting.
+    void releaseStaleSending().catch(() => undefined).then(go);
     window.addEventListener("online", go);
     return () => window.removeEventListener("online", go);
   }, []);

@@ -2,6 +2,8 @@
 // the photo's clientId → PUT the blob → complete), then the write itself with its clientId, so a
 // request retried after a lost answer never makes a second record. No signal or a server fault:
 // the item waits and sending stops until the next try. A refusal (422/409) stays with its reason.
+// One sender at a time across every tab (a Web Lock); an item left "sending" by a run that was cut
+// short (a reload, a closed tab) goes back to waiting, and a request that never answers times out.
 import { apiJson, putWithProgress, type ApiError } from "@/lib/client/api";
 import { getBlob, listItems, removeItem, updateItem, type OutboxItem } from "./store";
 
@@ -9,18 +11,53 @@ let running: Promise<SendSummary> | null = null;
 
 export type SendSummary = { sent: number; refused: number; waiting: number };
 
-/** Sends what is waiting; concurrent calls share one run. */
+const LOCK = "strutwise-outbox";
+/** How long one request may go unanswered (or a photo upload make no progress) before the item waits again. */
+const REQUEST_TIMEOUT_MS = 30_000;
+
+function locks(): LockManager | null {
+  return typeof navigator !== "undefined" && navigator.locks && typeof navigator.locks.request === "function" ? navigator.locks : null;
+}
+
+/** Sends what is waiting; concurrent calls in this tab share one run, other tabs wait their turn. */
 export function sendAll(): Promise<SendSummary> {
-  running ??= run().finally(() => {
+  const lm = locks();
+  // Without Web Locks (an old browser) the run still happens, one per tab.
+  running ??= (lm ? lm.request(LOCK, () => run()).then((r) => r) : run()).finally(() => {
     running = null;
   });
   return running;
+}
+
+/** Items marked "sending" by a run that no longer exists: back to waiting, so they are sent again. */
+async function resetStale() {
+  for (const item of await listItems()) {
+    if (item.status === "sending") await updateItem(item.id, { status: "waiting", progress: undefined, step: undefined });
+  }
+}
+
+/**
+ * When the app opens: if no tab is sending right now (the lock is free), whatever still says
+ * "sending" was cut short and goes back to waiting. Without Web Locks, a run in this tab is the only
+ * one that could be sending.
+ */
+export async function releaseStaleSending(): Promise<void> {
+  const lm = locks();
+  if (!lm) {
+    if (!running) await resetStale();
+    return;
+  }
+  await lm.request(LOCK, { ifAvailable: true }, async (lock) => {
+    if (lock) await resetStale();
+  });
 }
 
 const retryLater = (e: ApiError) => e.offline || e.status === 0 || e.status >= 500 || e.status === 429 || e.status === 401;
 
 async function run(): Promise<SendSummary> {
   const summary: SendSummary = { sent: 0, refused: 0, waiting: 0 };
+  // This run holds the lock: nothing else is sending, so "sending" is left over from a cut-short run.
+  await resetStale();
   const items = await listItems();
   for (const item of items) {
     if (item.status === "refused" || item.status === "conflict") {
@@ -50,16 +87,32 @@ async function sendOne(item: OutboxItem): Promise<"sent" | "refused" | "later"> 
     if (!blob) return refuse(item, { reason: `The photo ${p.name} is no longer on this phone; remove it and take it again.`, fields: { photoIds: "A photo is missing on this phone." } });
     const start = await apiJson<{ photoId: string; uploadUrl: string; status: string; headers: Record<string, string> }>(item.presignPath, {
       body: { contentType: p.type, size: p.size, clientId: p.clientId },
+      timeoutMs: REQUEST_TIMEOUT_MS,
     });
     if (!start.ok) return retryLater(start.error) ? wait(item) : refuse(item, { reason: `Photo ${p.name}: ${Object.values(start.error.fields)[0] ?? start.error.message}`, fields: start.error.fields });
     if (start.data.status === "pending") {
+      // A large photo on a weak signal may take minutes: it is given up only when it stops moving.
+      const stalled = new AbortController();
+      let timer = setTimeout(() => stalled.abort(), REQUEST_TIMEOUT_MS);
       try {
-        await putWithProgress(start.data.uploadUrl, blob, p.type, (f) => void updateItem(item.id, { progress: (n + f) / total, step: `Sending photo ${n + 1} of ${photos.length}` }));
+        await putWithProgress(
+          start.data.uploadUrl,
+          blob,
+          p.type,
+          (f) => {
+            clearTimeout(timer);
+            timer = setTimeout(() => stalled.abort(), REQUEST_TIMEOUT_MS);
+            void updateItem(item.id, { progress: (n + f) / total, step: `Sending photo ${n + 1} of ${photos.length}` });
+          },
+          stalled.signal,
+        );
       } catch {
         return wait(item);
+      } finally {
+        clearTimeout(timer);
       }
     }
-    const done = await apiJson<{ photo: { id: string; thumbnailUrl: string | null } }>(`/api/v1/photos/${start.data.photoId}/complete`, { body: {} });
+    const done = await apiJson<{ photo: { id: string; thumbnailUrl: string | null } }>(`/api/v1/photos/${start.data.photoId}/complete`, { body: {}, timeoutMs: REQUEST_TIMEOUT_MS });
     if (!done.ok) return retryLater(done.error) ? wait(item) : refuse(item, { reason: `Photo ${p.name}: ${done.error.fields.photo ?? done.error.message}`, fields: done.error.fields });
     photos[n] = { ...p, photoId: done.data.photo.id, thumbnailUrl: done.data.photo.thumbnailUrl };
     await updateItem(item.id, { photos, progress: (n + 1) / total });
@@ -67,7 +120,7 @@ async function sendOne(item: OutboxItem): Promise<"sent" | "refused" | "later"> 
   const photoIds = [...item.photoIds, ...photos.map((p) => p.photoId!)];
   await updateItem(item.id, { step: "Saving", progress: (total - 1) / total });
   const body = { ...item.body, ...(photoIds.length ? { photoIds } : {}) };
-  const r = await apiJson(item.path, { method: item.method, body });
+  const r = await apiJson(item.path, { method: item.method, body, timeoutMs: REQUEST_TIMEOUT_MS });
   if (r.ok) {
     await removeItem({ ...item, photos });
     return "sent";
