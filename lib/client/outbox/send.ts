@@ -5,7 +5,7 @@
 // One sender at a time across every tab (a Web Lock); an item left "sending" by a run that was cut
 // short (a reload, a closed tab) goes back to waiting, and a request that never answers times out.
 import { apiJson, putWithProgress, type ApiError } from "@/lib/client/api";
-import { getBlob, listItems, removeItem, updateItem, type OutboxItem } from "./store";
+import { announceSent, getBlob, isMine, listItems, outboxUser, removeItem, updateItem, type OutboxItem } from "./store";
 
 let running: Promise<SendSummary> | null = null;
 
@@ -58,7 +58,16 @@ async function run(): Promise<SendSummary> {
   const summary: SendSummary = { sent: 0, refused: 0, waiting: 0 };
   // This run holds the lock: nothing else is sending, so "sending" is left over from a cut-short run.
   await resetStale();
-  const items = await listItems();
+  // Only the signed-in person's entries, and only while the server agrees who that is: the session
+  // cookie is shared by every tab, so another person may have signed in elsewhere since this page loaded.
+  const me = outboxUser();
+  const items = (await listItems()).filter((i) => isMine(i, me));
+  if (!me || items.length === 0) return summary;
+  const who = await apiJson<{ user: { id: string } }>("/api/v1/me", { timeoutMs: REQUEST_TIMEOUT_MS });
+  if (!who.ok || who.data.user.id !== me) {
+    summary.waiting = items.filter((i) => i.status === "waiting").length;
+    return summary;
+  }
   for (const item of items) {
     if (item.status === "refused" || item.status === "conflict") {
       summary.refused += 1;
@@ -69,7 +78,7 @@ async function run(): Promise<SendSummary> {
     else if (outcome === "refused") summary.refused += 1;
     else {
       // No signal, or the server is down: everything after this one waits too, in order.
-      summary.waiting = (await listItems()).filter((i) => i.status === "waiting" || i.status === "sending").length;
+      summary.waiting = (await listItems()).filter((i) => isMine(i, me) && (i.status === "waiting" || i.status === "sending")).length;
       return summary;
     }
   }
@@ -123,6 +132,7 @@ async function sendOne(item: OutboxItem): Promise<"sent" | "refused" | "later"> 
   const r = await apiJson(item.path, { method: item.method, body, timeoutMs: REQUEST_TIMEOUT_MS });
   if (r.ok) {
     await removeItem({ ...item, photos });
+    announceSent(item.id, r.data);
     return "sent";
   }
   if (retryLater(r.error)) return wait(item);
