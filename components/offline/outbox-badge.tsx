@@ -7,11 +7,13 @@ import { Icon } from "@/components/icons";
 import { Button } from "@/components/ui/button";
 import { serverReachable } from "@/lib/client/outbox/reachable";
 import { releaseStaleSending, sendAll } from "@/lib/client/outbox/send";
-import { removeItem, updateItem, type OutboxItem } from "@/lib/client/outbox/store";
+import { removeItem, setOutboxUser, updateItem, type OutboxItem } from "@/lib/client/outbox/store";
 import { useOutbox } from "./use-outbox";
 
-export function OutboxBadge() {
-  const items = useOutbox();
+export function OutboxBadge({ userId }: { userId: string }) {
+  // Set while rendering, before any effect or submit can queue or send: entries are the signed-in person's.
+  setOutboxUser(userId);
+  const items = useOutbox(userId);
   const [open, setOpen] = useState(false);
   const [note, setNote] = useState<string | null>(null);
   const panelRef = useRef<HTMLDivElement>(null);

@@ -231,6 +231,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
           <p className="mb-3 text-sm text-ink-soft">A change to the extension, load, spacing, end conditions, type or scheme re-checks the member and keeps the old check in its history.</p>
           <MemberEditForm
             memberId={member.id}
+            siteId={site.id}
             unitSystem={site.unitSystem}
             member={{
               tag: member.tag, zoneId: member.zoneId, schemeId: member.schemeId, memberTypeId: member.memberTypeId, extensionMm: member.extensionMm,
