@@ -30,7 +30,7 @@ export function AppShell({
           </div>
           <div className="hidden md:block" />
           <div className="flex items-center gap-2">
-          <OutboxBadge />
+          <OutboxBadge userId={user.id} />
           <details className="relative">
             <summary className="flex min-h-touch cursor-pointer list-none items-center gap-2 rounded-lg px-2 font-semibold hover:bg-paper-sunk" aria-label="Account menu">
               <Icon name="user" />

@@ -5,11 +5,32 @@ import { formatTime } from "@/lib/format-date";
 import { usePathname } from "next/navigation";
 import { useEffect, useState } from "react";
 import { Icon } from "@/components/icons";
+import { loadedAtText } from "@/lib/client/format";
 import { serverReachable } from "@/lib/client/outbox/reachable";
+import { KEPT_KEY_PREFIX } from "@/lib/client/sw/cache-names";
 
 /** The pages a site engineer needs on a round, for the site in view. */
 function roundPages(siteRoot: string) {
   return [siteRoot, `${siteRoot}/members/new`, `${siteRoot}/inspections`, `${siteRoot}/library`, `${siteRoot}/schemes`, `${siteRoot}/members`];
+}
+
+/**
+ * For every site the person belongs to (not only the one in view): the member library, zones and
+ * schemes as the API gives them, and Log member (which carries them), so a round that moves to
+ * another site still logs and checks members with no signal.
+ */
+async function everySiteReads(): Promise<string[]> {
+  try {
+    const res = await fetch("/api/v1/sites", { credentials: "same-origin" });
+    if (!res.ok) return [];
+    const { items } = (await res.json()) as { items: { id: string; archived: boolean }[] };
+    return items
+      .filter((s) => !s.archived)
+      .slice(0, 20)
+      .flatMap((s) => [`/api/v1/sites/${s.id}/member-types`, `/api/v1/sites/${s.id}/zones`, `/api/v1/sites/${s.id}/schemes`, `/sites/${s.id}/members/new`]);
+  } catch {
+    return [];
+  }
 }
 
 export function OfflineSupport({ renderedAt, siteRoot }: { renderedAt: string; siteRoot?: string }) {
@@ -48,11 +69,14 @@ export function OfflineSupport({ renderedAt, siteRoot }: { renderedAt: string; s
         const links = [...document.querySelectorAll<HTMLAnchorElement>('main a[href$="/inspect"]')].map((a) => new URL(a.href).pathname);
         const seen = /\/members\/[0-9a-f-]{36}(\/inspect)?$/.test(pathname) ? [pathname] : [];
         // The round's pages at most every ten minutes: each is a page the server renders again.
-        const key = `strutwise:kept:${siteRoot ?? ""}`;
+        const key = `${KEPT_KEY_PREFIX}${siteRoot ?? ""}`;
         const last = Number(sessionStorage.getItem(key) ?? 0);
-        const round = siteRoot && Date.now() - last > 10 * 60_000 ? roundPages(siteRoot) : [];
-        if (round.length) sessionStorage.setItem(key, String(Date.now()));
-        const urls = [...new Set([...round, ...seen, ...links])];
+        const due = Date.now() - last > 10 * 60_000;
+        const round = siteRoot && due ? roundPages(siteRoot) : [];
+        const everySite = due ? await everySiteReads() : [];
+        if (due) sessionStorage.setItem(key, String(Date.now()));
+        if (cancelled) return;
+        const urls = [...new Set([...round, ...seen, ...links, ...everySite])];
         if (urls.length) reg.active.postMessage({ type: "keep", urls });
       } catch {
         /* no service worker (not built in development): the app still works online */
@@ -65,12 +89,12 @@ export function OfflineSupport({ renderedAt, siteRoot }: { renderedAt: string; s
   }, [pathname, siteRoot]);
 
   if (!offline) return null;
-  const at = formatTime(renderedAt);
+  const at = loadedAtText(renderedAt);
   return (
     <div role="status" className="flex items-center gap-2 border-b-2 border-warn bg-warn-soft px-4 py-2 text-sm font-semibold print:hidden" data-testid="offline-banner">
       <Icon name="warn" className="h-5 w-5 shrink-0" />
       <span>
-        Offline — showing what was loaded at {at}. What you save waits on this phone and is sent when you have signal.
+        Offline — showing what was loaded at <time dateTime={renderedAt}>{at}</time> (the last refresh with signal). What you save waits on this phone and is sent when you have signal.
       </span>
     </div>
   );

@@ -2,17 +2,18 @@
 // "Waiting to send" in the header: how many entries this phone still holds, each with its
 // progress, "Send now", and for one the server refused: the reason and a way to fix and resend.
 // Sending starts by itself when the connection returns and whenever the app opens with signal.
-import { formatTime } from "@/lib/format-date";
 import { useEffect, useRef, useState } from "react";
 import { Icon } from "@/components/icons";
 import { Button } from "@/components/ui/button";
 import { serverReachable } from "@/lib/client/outbox/reachable";
-import { releaseStale, sendAll } from "@/lib/client/outbox/send";
-import { removeItem, updateItem, type OutboxItem } from "@/lib/client/outbox/store";
+import { releaseStaleSending, sendAll } from "@/lib/client/outbox/send";
+import { removeItem, setOutboxUser, updateItem, type OutboxItem } from "@/lib/client/outbox/store";
 import { useOutbox } from "./use-outbox";
 
-export function OutboxBadge() {
-  const items = useOutbox();
+export function OutboxBadge({ userId }: { userId: string }) {
+  // Set while rendering, before any effect or submit can queue or send: entries are the signed-in person's.
+  setOutboxUser(userId);
+  const items = useOutbox(userId);
   const [open, setOpen] = useState(false);
   const [note, setNote] = useState<string | null>(null);
   const panelRef = useRef<HTMLDivElement>(null);
@@ -20,8 +21,8 @@ export function OutboxBadge() {
   const waiting = (items ?? []).some((i) => i.status === "waiting" || i.status === "sending");
   useEffect(() => {
     const go = () => void serverReachable().then((ok) => { if (ok) void sendAll(); });
-    // An item left "sending" when the page went away (reload, closed tab) is waiting again.
-    void releaseStale().then(go);
+    // An entry a reload cut off mid-send says "sending" until it is put back to waiting.
+    void releaseStaleSending().catch(() => undefined).then(go);
     window.addEventListener("online", go);
     return () => window.removeEventListener("online", go);
   }, []);
@@ -88,7 +89,7 @@ export function OutboxBadge() {
 }
 
 function OutboxRow({ item }: { item: OutboxItem }) {
-  const queued = formatTime(item.queuedAt);
+  const queued = new Date(item.queuedAt).toLocaleTimeString("en-GB", { hour: "2-digit", minute: "2-digit" });
   return (
     <li className="rounded-lg border-2 border-ink/15 p-2" data-testid="outbox-item" data-status={item.status}>
       <p className="font-semibold">{item.label}</p>

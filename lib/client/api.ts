@@ -3,9 +3,16 @@ import "@/lib/validations/messages";
 export type ApiError = { status: number; code: string; message: string; fields: Record<string, string>; offline?: boolean; current?: unknown };
 export type ApiResult<T> = { ok: true; status: number; data: T } | { ok: false; error: ApiError };
 
-/** `timeoutMs`: give up on a request that hangs (a weak signal); it then answers as offline. */
+/**
+ * `timeoutMs`: give up when the server has not answered in that time (a weak signal that never
+ * answers), reported like no connection so the caller keeps the entry and tries again later.
+ */
 export async function apiJson<T>(path: string, init: { method?: string; body?: unknown; timeoutMs?: number } = {}): Promise<ApiResult<T>> {
+  const offline = (message: string): ApiResult<T> => ({ ok: false, error: { status: 0, code: "offline", offline: true, fields: {}, message } });
+  const noConnection = "Not sent: no connection to the server. What you entered is kept on this device; try again when you have signal.";
+  const timedOut = "Not sent: the server did not answer in time (weak signal). What you entered is kept on this device; it is tried again.";
   let res: Response;
+  let text: string;
   try {
     res = await fetch(path, {
       method: init.method ?? (init.body === undefined ? "GET" : "POST"),
@@ -14,13 +21,10 @@ export async function apiJson<T>(path: string, init: { method?: string; body?: u
       credentials: "same-origin",
       ...(init.timeoutMs ? { signal: AbortSignal.timeout(init.timeoutMs) } : {}),
     });
-  } catch {
-    return {
-      ok: false,
-      error: { status: 0, code: "offline", offline: true, fields: {}, message: "Not sent: no connection to the server. What you entered is kept on this device; try again when you have signal." },
-    };
+    text = await res.text();
+  } catch (e) {
+    return offline(e instanceof DOMException && e.name === "TimeoutError" ? timedOut : noConnection);
   }
-  const text = await res.text();
   let body: unknown = null;
   try {
     body = text ? JSON.parse(text) : null;

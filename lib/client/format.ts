@@ -24,3 +24,10 @@ export function formatUtilisation(u: number | null | undefined): string {
   if (missing(u)) return "—";
   return `${Math.round(u * 100)} %`;
 }
+
+/** "14:32" today, "2 Dec 14:32" for an older copy: the banner says how old what is shown is. */
+export function loadedAtText(renderedAt: string, now = new Date()): string {
+  const at = new Date(renderedAt);
+  const time = at.toLocaleTimeString("en-GB", { hour: "2-digit", minute: "2-digit" });
+  return at.toDateString() === now.toDateString() ? time : `${at.toLocaleDateString("en-GB", { day: "numeric", month: "short" })} ${time}`;
+}

@@ -89,6 +89,9 @@ test("a round with no signal: three members, two photos and an inspection arrive
   await expect(page.getByTestId("photo-item").and(page.locator('[data-status="queued"]'))).toHaveCount(2);
   await page.getByRole("button", { name: "Save and check" }).click();
   await expect(page.getByRole("status").filter({ hasText: `${tagA} saved on this phone — waiting to send` })).toBeVisible();
+  // The phone checks it at once from the library it kept, clearly marked as not the stored check.
+  await expect(page.getByTestId("provisional-check")).toContainText("Provisional — the server's check is the one stored");
+  await expect(page.getByTestId("provisional-check")).toContainText(/Provisional check \(on this phone\)/);
   for (const [tag, ext] of [[tagB, "2700"], [tagC, "2800"]] as const) {
     await page.getByRole("button", { name: "Log another member" }).click();
     await fillMember(page, tag, ext);

@@ -20,6 +20,8 @@ export type OutboxItem = {
   /** The write's clientId (creates) or its own id (edits). */
   id: string;
   kind: OutboxKind;
+  /** Who saved it: it is sent only while that person is signed in on this phone. */
+  userId?: string;
   siteId: string;
   /** What a person reads in the list: "Member P-101", "Inspection of P-7". */
   label: string;
@@ -64,15 +66,50 @@ function db() {
   return dbp;
 }
 
-// Every tab (and the list in the header) hears of a change.
+// The person signed in on this page (set by the header): their entries are the ones listed and
+// sent. Entries saved by someone else on this phone wait until that person signs in again.
+let currentUser: string | null = null;
+export function setOutboxUser(userId: string) {
+  currentUser = userId;
+}
+export function outboxUser() {
+  return currentUser;
+}
+/**
+ * Whether this item is the signed-in person's. An entry saved before entries were keyed per
+ * person has no owner and goes with whoever is signed in next.
+ */
+export function isMine(item: Pick<OutboxItem, "userId">, userId: string | null = currentUser) {
+  return userId != null && (item.userId == null || item.userId === userId);
+}
+
+type SentMessage = { type: "sent"; id: string; data: unknown };
+
+// Every tab (and the list in the header) hears of a change, and a form still open on an entry
+// hears when the server has it (with the server's answer).
 const listeners = new Set<() => void>();
+const sentListeners = new Set<(id: string, data: unknown) => void>();
 let channel: BroadcastChannel | null = null;
 function bus() {
   if (!channel && typeof BroadcastChannel !== "undefined") {
     channel = new BroadcastChannel("strutwise-outbox");
-    channel.onmessage = () => listeners.forEach((l) => l());
+    channel.onmessage = (e: MessageEvent<"changed" | SentMessage>) => {
+      const msg = e.data;
+      if (typeof msg === "object" && msg?.type === "sent") sentListeners.forEach((l) => l(msg.id, msg.data));
+      else listeners.forEach((l) => l());
+    };
   }
   return channel;
+}
+/** The server has stored this entry: its answer goes to any form waiting on it, in every tab. */
+export function announceSent(id: string, data: unknown) {
+  sentListeners.forEach((l) => l(id, data));
+  bus()?.postMessage({ type: "sent", id, data } satisfies SentMessage);
+}
+export function onSent(listener: (id: string, data: unknown) => void) {
+  bus();
+  sentListeners.add(listener);
+  return () => void sentListeners.delete(listener);
 }
 function changed() {
   listeners.forEach((l) => l());

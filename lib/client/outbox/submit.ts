@@ -3,7 +3,7 @@
 // connection returns. Every create carries a clientId, so a retry never doubles a record.
 import { apiJson, type ApiError } from "@/lib/client/api";
 import { sendAll } from "./send";
-import { putItem, type OutboxItem, type OutboxKind } from "./store";
+import { outboxUser, putItem, type OutboxItem, type OutboxKind } from "./store";
 
 export type QueuedPhoto = { name: string; blob: Blob };
 
@@ -52,6 +52,7 @@ export async function submitOrQueue<T>(req: SubmitRequest): Promise<SubmitResult
     {
       id,
       kind: req.kind,
+      userId: outboxUser() ?? undefined,
       siteId: req.siteId,
       label: req.label,
       method,

@@ -5,11 +5,10 @@
 // Bundled by scripts/build-sw.mjs (esbuild, then @serwist/build injects the precache list).
 /// <reference lib="webworker" />
 import { CacheableResponsePlugin, ExpirationPlugin, NetworkFirst, Serwist, type PrecacheEntry } from "serwist";
+import { DATA_CACHE, PAGES_CACHE } from "./cache-names";
 
 declare const self: ServiceWorkerGlobalScope & { __SW_MANIFEST: (PrecacheEntry | string)[] | undefined };
 
-export const PAGES_CACHE = "strutwise-pages";
-const DATA_CACHE = "strutwise-data";
 const okOnly = () => new CacheableResponsePlugin({ statuses: [200] });
 
 /** Pages that must not be kept: signing in and out, first run, links from e-mails. */
@@ -45,20 +44,22 @@ const serwist = new Serwist({
 
 /**
  * The app asks for the pages of a round to be kept while it has signal (the site overview, Log
- * member, the inspection round and the checklists it lists, the library, zones and schemes).
+ * member, the inspection round and the checklists it lists, the library, zones and schemes), and
+ * the API reads of every site the person belongs to (library, zones, schemes): those go with the
+ * other API reads, so a request for them with no signal is answered from here.
  * "forget" empties the kept pages and data (sign-out), so the next person on the phone sees none of it.
  */
 self.addEventListener("message", (event: ExtendableMessageEvent) => {
   const data = event.data as { type?: string; urls?: unknown } | null;
   if (data?.type === "keep" && Array.isArray(data.urls)) {
-    const urls = data.urls.filter((u): u is string => typeof u === "string" && u.startsWith("/") && !NOT_KEPT.test(u)).slice(0, 80);
+    const urls = data.urls.filter((u): u is string => typeof u === "string" && u.startsWith("/") && !NOT_KEPT.test(u) && !/^\/api\/v1\/ping/.test(u) && !u.endsWith(".csv")).slice(0, 120);
     event.waitUntil(
       (async () => {
-        const cache = await caches.open(PAGES_CACHE);
+        const [pagesCache, dataCache] = await Promise.all([caches.open(PAGES_CACHE), caches.open(DATA_CACHE)]);
         for (const url of urls) {
           try {
             const res = await fetch(url, { credentials: "same-origin", redirect: "manual" });
-            if (res.status === 200) await cache.put(url, res);
+            if (res.status === 200) await (url.startsWith("/api/") ? dataCache : pagesCache).put(url, res);
           } catch {
             return; // signal lost: keep what was kept so far
           }

@@ -1,12 +1,14 @@
 "use client";
 // Edits a member (PATCH). A change that affects capacity re-checks it; the new result shows at once.
+// With no signal the edit waits on the phone with the version it was made against; if the member
+// changes on the server meanwhile, the header's list shows both and the person chooses.
 import { useRouter } from "next/navigation";
 import { useEffect, useRef, useState } from "react";
 import { useForm } from "react-hook-form";
 import { Icon } from "@/components/icons";
 import { PlanPlacePicker, type PlanPlace } from "@/components/plan/plan-place-picker";
 import { useServerErrors } from "@/components/use-server-errors";
-import { apiJson } from "@/lib/client/api";
+import { submitOrQueue } from "@/lib/client/outbox/submit";
 import { CheckResult, type CheckSummary } from "@/components/register/check-result";
 import { MemberFields, type SchemeOption, type TypeOption, type ZoneOption } from "@/components/register/member-fields";
 import { EMPTY_MEMBER_FORM, FIELD_OF, forceText, lengthText, toMemberInput, type MemberFormValues, type UnitSystem } from "@/components/register/member-form-values";
@@ -96,13 +98,25 @@ export function MemberEditForm({
       setMessage({ ok: true, text: "Nothing changed." });
       return;
     }
-    const r = await apiJson<{ member: { loadN: number }; check: CheckSummary | null }>(`/api/v1/members/${memberId}`, { method: "PATCH", body: { ...patch, baseVersion: member.version } });
-    if (!r.ok && r.error.status === 409 && r.error.fields.baseVersion) {
+    const r = await submitOrQueue<{ member: { loadN: number }; check: CheckSummary | null }>({
+      kind: "edit",
+      siteId,
+      label: `Edit of ${member.tag}`,
+      method: "PATCH",
+      path: `/api/v1/members/${memberId}`,
+      presignPath: `/api/v1/members/${memberId}/photos`,
+      body: { ...patch, baseVersion: member.version },
+    });
+    if (!r.sent && r.queued) {
+      setMessage({ ok: true, text: "Saved on this phone — waiting to send. If the member changes on the server meanwhile, you are shown both and asked which to keep." });
+      return;
+    }
+    if (!r.sent && r.error.status === 409 && r.error.fields.baseVersion) {
       // Keep what was typed; the page behind it shows the member as it is now after a refresh.
       setMessage({ ok: false, text: `${r.error.message} Your changes are still in this form: note what you want to keep, then reload to see the member as it is now.` });
       return;
     }
-    if (!r.ok) {
+    if (!r.sent) {
       const planField = Object.entries(r.error.fields).find(([k]) => k.startsWith("planPosition"));
       if (planField) setPlaceError(planField[1]);
       placeErrors({ ...r.error, fields: Object.fromEntries(Object.entries(r.error.fields).filter(([k]) => !k.startsWith("planPosition"))) });

@@ -8,7 +8,9 @@ import { Icon } from "@/components/icons";
 import { PlanPlacePicker, type PlanPlace } from "@/components/plan/plan-place-picker";
 import { useLocalDraft } from "@/components/use-local-draft";
 import { useServerErrors } from "@/components/use-server-errors";
+import { onSent } from "@/lib/client/outbox/store";
 import { newClientId, submitOrQueue } from "@/lib/client/outbox/submit";
+import { provisionalCheck, type OfflineCheckData } from "@/lib/register/provisional-check";
 import { CheckResult, type CheckSummary } from "@/components/register/check-result";
 import { MemberFields, type SchemeOption, type TypeOption, type ZoneOption } from "@/components/register/member-fields";
 import { EMPTY_MEMBER_FORM, FIELD_OF, toMemberInput, type MemberFormValues, type UnitSystem } from "@/components/register/member-form-values";
@@ -17,6 +19,8 @@ import { Button, buttonClass } from "@/components/ui/button";
 import { memberCreateSchema } from "@/lib/validations/member";
 
 type Saved = { member: { id: string; tag: string; loadN: number; status: string }; check: CheckSummary };
+/** An entry waiting on this phone, with the check the phone ran itself. */
+type Queued = { id: string; tag: string; provisional: { check: CheckSummary; loadN: number } | null };
 type Draft = { values: MemberFormValues; photos: UploadedPhoto[]; place?: PlanPlace; savedAt: string };
 
 function draftKey(siteId: string) {
@@ -28,8 +32,8 @@ const isFormField = (k: string) => k in EMPTY_MEMBER_FORM;
 const formFieldOf = (k: string): string => FIELD_OF[k] ?? k;
 
 export function LogMemberForm({
-  siteId, unitSystem, prefillTag, zones, schemes, types,
-}: { siteId: string; unitSystem: UnitSystem; prefillTag: string; zones: ZoneOption[]; schemes: SchemeOption[]; types: TypeOption[] }) {
+  siteId, unitSystem, prefillTag, zones, schemes, types, offline,
+}: { siteId: string; unitSystem: UnitSystem; prefillTag: string; zones: ZoneOption[]; schemes: SchemeOption[]; types: TypeOption[]; offline: OfflineCheckData }) {
   const resolver: Resolver<MemberFormValues> = useCallback(
     async (values) => {
       const { input, errors } = toMemberInput(values, unitSystem);
@@ -56,7 +60,9 @@ export function LogMemberForm({
   const [restored, setRestored] = useState<string | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState<Saved | null>(null);
-  const [queued, setQueued] = useState<string | null>(null);
+  const [queued, setQueued] = useState<Queued | null>(null);
+  /** Set when the member shown was saved on this phone first and sent later. */
+  const [sentLater, setSentLater] = useState(false);
   const queuedPhotos = useRef<QueuedFile[]>([]);
   const [uploaderKey, setUploaderKey] = useState(0);
   const photosRef = useRef(photos);
@@ -128,10 +134,25 @@ export function LogMemberForm({
     setRestored(null);
   }
 
+  // The entry waiting on this phone reaches the server (sent from this tab or another): show the server's check.
+  const queuedId = queued?.id;
+  useEffect(() => {
+    if (!queuedId) return;
+    return onSent((id, data) => {
+      const answer = data as Partial<Saved> | null;
+      if (id !== queuedId || !answer?.member || !answer.check) return;
+      setSaved(answer as Saved);
+      setSentLater(true);
+      setQueued(null);
+    });
+  }, [queuedId]);
+
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
+    setSentLater(false);
     saveDraft();
     const { input } = toMemberInput(values, unitSystem);
+    const provisional = provisionalCheck(input, offline);
     // With no signal (or a request lost on a weak one) the entry waits in the outbox and is sent once.
     const r = await submitOrQueue<Saved>({
       kind: "member",
@@ -142,11 +163,12 @@ export function LogMemberForm({
       body: { ...input, submit: values.submit, clientId: newClientId(), ...(placeRef.current ? { planPosition: placeRef.current } : {}) },
       photoIds: photos.map((p) => p.photoId),
       photos: queuedPhotos.current,
+      provisional: provisional ? { capacityN: provisional.check.capacityN, utilisation: provisional.check.utilisation, pass: provisional.check.pass } : undefined,
     });
     if (!r.sent && r.queued) {
       draft.clear();
       setRestored(null);
-      setQueued(values.tag.trim());
+      setQueued({ id: r.id, tag: values.tag.trim(), provisional });
       return;
     }
     if (!r.sent) {
@@ -174,6 +196,7 @@ export function LogMemberForm({
     setUploaderKey((k) => k + 1);
     setSaved(null);
     setQueued(null);
+    setSentLater(false);
     requestAnimationFrame(() => setFocus("tag"));
   }
 
@@ -181,9 +204,19 @@ export function LogMemberForm({
     return (
       <div className="flex flex-col gap-4">
         <h2 className="text-xl font-bold" role="status">
-          {queued} saved on this phone — waiting to send
+          {queued.tag} saved on this phone — waiting to send
         </h2>
         <p>No signal just now. It is kept on this phone (also through a reload or a flat battery) and sent once when the connection returns; the server then checks it and stores the result.</p>
+        {queued.provisional ? (
+          <div className="flex flex-col gap-2" data-testid="provisional-check">
+            <p className="rounded-lg border-2 border-warn bg-warn-soft p-3 font-semibold">
+              Provisional — the server&apos;s check is the one stored. This phone checked the member with the library it was loaded with; the server checks it again when it arrives.
+            </p>
+            <CheckResult check={queued.provisional.check} loadN={queued.provisional.loadN} forceUnit={unitSystem === "us" ? "kip" : "kN"} title="Provisional check (on this phone)" />
+          </div>
+        ) : (
+          <p className="font-semibold">This phone could not check it (its type or scheme was not loaded here); the server checks it when it arrives.</p>
+        )}
         <Button type="button" variant="secondary" className="w-full" onClick={logAnother}>
           <Icon name="add" /> Log another member
         </Button>
@@ -197,6 +230,11 @@ export function LogMemberForm({
         <h2 ref={resultRef} tabIndex={-1} className="text-xl font-bold">
           {saved.member.tag} saved as {saved.member.status === "submitted" ? "submitted" : "a draft"}
         </h2>
+        {sentLater ? (
+          <p role="status" className="font-semibold" data-testid="server-check-note">
+            Sent from this phone. This is the server&apos;s check, the one stored; it replaces the provisional one.
+          </p>
+        ) : null}
         <CheckResult check={saved.check} loadN={saved.member.loadN} forceUnit={unitSystem === "us" ? "kip" : "kN"} />
         <Link href={`/sites/${siteId}/members/${saved.member.id}`} className={buttonClass("primary", "w-full")}>
           Open the member page

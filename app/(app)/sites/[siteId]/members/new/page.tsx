@@ -32,6 +32,14 @@ export default async function LogMemberPage({ params, searchParams }: { params: 
           formworkKnM2: s.formworkKnM2, constructionKnM2: s.constructionKnM2, designSpacingXMm: s.designSpacingXMm, designSpacingYMm: s.designSpacingYMm,
         }))}
         types={types.map((t) => ({ id: t.id, name: t.name, kind: t.kind, minExtensionMm: t.minExtensionMm, maxExtensionMm: t.maxExtensionMm }))}
+        // The library and slab data with the page: a copy kept for a round checks a member with no signal.
+        offline={{
+          site: { designCode: site.designCode, unitSystem: site.unitSystem },
+          types: types.map((t) => ({ id: t.id, kind: t.kind, params: t.params as Record<string, unknown>, minExtensionMm: t.minExtensionMm, maxExtensionMm: t.maxExtensionMm })),
+          schemes: schemes.map((s) => ({
+            id: s.id, reference: s.reference, slabThicknessMm: s.slabThicknessMm, concreteDensityKnM3: s.concreteDensityKnM3, formworkKnM2: s.formworkKnM2, constructionKnM2: s.constructionKnM2,
+          })),
+        }}
       />
       <CautionNotice compact />
     </div>
