@@ -8,7 +8,7 @@ import type { MemberListItem } from "@/db/queries/member-list";
 import { formatForceFor, formatLengthFor, formatUtilisation, type UnitSystem } from "@/lib/client/format";
 import { CheckBadge, StatusBadge } from "./member-badges";
 import { SortIcon, UtilBar, utilClass } from "./register-cells";
-import { formatDateTime } from "@/lib/format-date";
+import { formatDate, formatDateTime, formatTime } from "@/lib/format-date";
 
 type ColumnMeta = { numeric?: boolean; className?: string };
 
@@ -100,7 +100,13 @@ export function useRegisterColumns({ siteId, unitSystem, timeZone }: { siteId: s
       },
       { id: "scheme", header: "Scheme", enableSorting: false, cell: ({ row }) => row.original.scheme?.reference ?? "—" },
       { id: "photos", header: "Photos", enableSorting: false, meta: { numeric: true }, cell: ({ row }) => row.original.photoCount },
-      { id: "updated", accessorFn: (r) => r.updatedAt, header: "Updated", cell: ({ row }) => <span className="whitespace-nowrap">{formatDateTime(row.original.updatedAt, timeZone)}</span> },
+      { id: "updated", accessorFn: (r) => r.updatedAt, header: "Updated", cell: ({ row }) => (
+          // The day over the time (the site's), so the full date fits the desk's 1366 px beside the other columns.
+          <time dateTime={String(row.original.updatedAt)} title={formatDateTime(row.original.updatedAt, timeZone)}>
+            <span className="block whitespace-nowrap">{formatDate(row.original.updatedAt, timeZone)}</span>
+            <span className="block whitespace-nowrap text-ink-soft">{formatTime(row.original.updatedAt, timeZone)}</span>
+          </time>
+        ) },
     ],
     [siteId, unitSystem, timeZone],
   );
