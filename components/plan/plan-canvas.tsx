@@ -8,6 +8,8 @@ import { lookOf, type PinState } from "@/lib/zone-plans/pin-look";
 export type CanvasPin = { id: string; x: number; y: number; state: PinState; label: string; dim?: boolean };
 
 const PIN_PX = 11;
+/** Width of one character of a 12 px bold label, about 0.62 em (rounded up so a label never underestimates). */
+const LABEL_CHAR_PX = 7.6;
 const MIN_ZOOM = 1;
 const MAX_ZOOM = 8;
 
@@ -112,6 +114,22 @@ export function PlanCanvas({
   const unit = shownPx > 0 ? width / shownPx : width / 800;
   const r = PIN_PX * unit;
   const showLabels = labels === "always" || pins.length <= 80 || zoom >= 2.5;
+  // A label is drawn only where it reads: not over a neighbouring pin at this zoom (labels of a
+  // tight row would print over each other). Zooming in spreads the pins and brings the labels back;
+  // a hidden label's pin still has its icon, and a tap shows its tag.
+  const labelled = useMemo(() => {
+    if (labels === "always") return null;
+    if (!showLabels) return new Set<string>();
+    const at = pins.map((p) => ({ id: p.id, x: (p.x * width) / unit, y: (p.y * height) / unit, w: LABEL_CHAR_PX * p.label.length + 4 }));
+    const keep = new Set<string>();
+    for (const a of at) {
+      const x0 = a.x + PIN_PX * 1.3;
+      const x1 = x0 + a.w;
+      const clash = at.some((b) => b !== a && b.x + PIN_PX > x0 && b.x - PIN_PX < x1 && Math.abs(b.y - a.y) < PIN_PX + 8);
+      if (!clash) keep.add(a.id);
+    }
+    return keep;
+  }, [labels, showLabels, pins, width, height, unit]);
 
   const drawn = useMemo(
     () =>
@@ -134,7 +152,7 @@ export function PlanCanvas({
             <circle r={rr * 1.9} fill="transparent" />
             <circle r={rr} fill={look.colour} stroke={selected ? "#000" : "#111"} strokeWidth={(selected ? 3 : 1.2) * unit} />
             <path d={look.glyph} transform={`scale(${rr})`} stroke="#fff" strokeWidth={0.28} fill="none" strokeLinecap="round" strokeLinejoin="round" />
-            {showLabels || selected ? (
+            {(labelled === null || labelled.has(p.id)) || selected ? (
               <text x={rr * 1.3} y={rr * 0.45} fontSize={12 * unit} fontWeight={700} fill="#111" stroke="#fff" strokeWidth={3 * unit} paintOrder="stroke">
                 {p.label}
               </text>
@@ -142,7 +160,7 @@ export function PlanCanvas({
           </g>
         );
       }),
-    [pins, selectedId, r, unit, width, height, onPinTap, showLabels],
+    [pins, selectedId, r, unit, width, height, onPinTap, labelled],
   );
 
   const onClick = (e: React.MouseEvent) => {
