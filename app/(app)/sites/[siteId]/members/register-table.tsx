@@ -83,7 +83,7 @@ export function useRegisterColumns({ siteId, unitSystem, timeZone }: { siteId: s
         header: "Type",
         enableSorting: false,
         cell: ({ row }) => (
-          <span className="block max-w-28 truncate 2xl:max-w-36 print:max-w-none print:whitespace-normal" title={row.original.type.name}>
+          <span className="block max-w-24 truncate 2xl:max-w-36 print:max-w-none print:whitespace-normal" title={row.original.type.name}>
             {row.original.type.name}
           </span>
         ),
@@ -93,7 +93,7 @@ export function useRegisterColumns({ siteId, unitSystem, timeZone }: { siteId: s
         header: "Zone",
         enableSorting: false,
         cell: ({ row }) => (
-          <span className="block max-w-24 truncate 2xl:max-w-32 print:max-w-none print:whitespace-normal" title={row.original.zone?.name}>
+          <span className="block max-w-20 truncate 2xl:max-w-32 print:max-w-none print:whitespace-normal" title={row.original.zone?.name}>
             {row.original.zone?.name ?? "—"}
           </span>
         ),
