@@ -66,6 +66,29 @@ function fmtStep(s: Step) {
   return abs !== 0 && (abs < 0.001 || abs >= 1e7) ? s.value.toExponential(3) : Number(s.value.toPrecision(5)).toString();
 }
 
+/** The working of a check, step by step, with each step's source. */
+function StepsTable({ caption, steps }: { caption: string; steps: Step[] }) {
+  return (
+    <table className="w-full min-w-[36rem] text-left text-sm">
+      <caption className="sr-only">{caption}</caption>
+      <thead className="bg-paper-sunk">
+        <tr><th scope="col" className="p-1">Step</th><th scope="col" className="p-1">Symbol</th><th scope="col" className="p-1 text-right">Value</th><th scope="col" className="p-1">Unit</th><th scope="col" className="p-1">Source</th></tr>
+      </thead>
+      <tbody>
+        {steps.map((s, i) => (
+          <tr key={i} className="border-t border-ink/10">
+            <td className="p-1">{s.label}</td>
+            <td className="p-1 font-mono">{s.symbol}</td>
+            <td className="tabular p-1 text-right">{fmtStep(s)}</td>
+            <td className="p-1">{s.unit}</td>
+            <td className="p-1 text-ink-soft">{s.source}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
 export default async function MemberPage({ params }: { params: Promise<{ siteId: string; memberId: string }> }) {
   const { siteId, memberId } = await params;
   const { user, site, may } = await loadSitePage(siteId);
@@ -299,23 +322,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
                     {v.errors?.length ? <ul className="mb-2">{v.errors.map((e, i) => <li key={i} className="font-semibold text-bad">⛔ {e.message}</li>)}</ul> : null}
                     <p className="mb-2 text-sm">Load factor {v.loadFactor}: {v.loadFactorSource}</p>
                     {steps.length ? (
-                      <table className="w-full min-w-[36rem] text-left text-sm">
-                        <caption className="sr-only">Working of this check</caption>
-                        <thead className="bg-paper-sunk">
-                          <tr><th scope="col" className="p-1">Step</th><th scope="col" className="p-1">Symbol</th><th scope="col" className="p-1 text-right">Value</th><th scope="col" className="p-1">Unit</th><th scope="col" className="p-1">Source</th></tr>
-                        </thead>
-                        <tbody>
-                          {steps.map((s, i) => (
-                            <tr key={i} className="border-t border-ink/10">
-                              <td className="p-1">{s.label}</td>
-                              <td className="p-1 font-mono">{s.symbol}</td>
-                              <td className="tabular p-1 text-right">{fmtStep(s)}</td>
-                              <td className="p-1">{s.unit}</td>
-                              <td className="p-1 text-ink-soft">{s.source}</td>
-                            </tr>
-                          ))}
-                        </tbody>
-                      </table>
+                      <StepsTable caption="Working of this check" steps={steps} />
                     ) : null}
                     {v.warnings.length ? <ul className="mt-2 text-sm">{v.warnings.map((w, i) => <li key={i}>⚠ {w}</li>)}</ul> : null}
                     {v.bearing ? (
@@ -329,23 +336,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
                         </p>
                         {v.bearing.errors?.length ? <ul className="mb-2">{v.bearing.errors.map((e, i) => <li key={i} className="font-semibold text-bad">⛔ {e.message}</li>)}</ul> : null}
                         {v.bearing.steps.length ? (
-                          <table className="w-full min-w-[36rem] text-left text-sm">
-                            <caption className="sr-only">Working of the bearing check</caption>
-                            <thead className="bg-paper-sunk">
-                              <tr><th scope="col" className="p-1">Step</th><th scope="col" className="p-1">Symbol</th><th scope="col" className="p-1 text-right">Value</th><th scope="col" className="p-1">Unit</th><th scope="col" className="p-1">Source</th></tr>
-                            </thead>
-                            <tbody>
-                              {v.bearing.steps.map((s, i) => (
-                                <tr key={i} className="border-t border-ink/10">
-                                  <td className="p-1">{s.label}</td>
-                                  <td className="p-1 font-mono">{s.symbol}</td>
-                                  <td className="tabular p-1 text-right">{fmtStep(s)}</td>
-                                  <td className="p-1">{s.unit}</td>
-                                  <td className="p-1 text-ink-soft">{s.source}</td>
-                                </tr>
-                              ))}
-                            </tbody>
-                          </table>
+                          <StepsTable caption="Working of the bearing check" steps={v.bearing.steps} />
                         ) : null}
                         {v.bearing.warnings.length ? <ul className="mt-2 text-sm">{v.bearing.warnings.map((w, i) => <li key={i}>⚠ {w}</li>)}</ul> : null}
                       </div>
