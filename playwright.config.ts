@@ -21,6 +21,9 @@ export default defineConfig({
     baseURL: process.env.APP_URL ?? "http://127.0.0.1:3100",
     trace: "retain-on-failure",
     screenshot: "only-on-failure",
+    // The service worker precaches the app shell (about 50 files) in every new browser context,
+    // which only the offline journeys need; they say `test.use({ serviceWorkers: "allow" })`.
+    serviceWorkers: "block",
     launchOptions: chromium,
   },
   projects: [

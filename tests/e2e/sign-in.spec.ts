@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { mainNav, openSite, signIn } from "./helpers";
+import { mainNav, openSite, signIn, signInWithForm } from "./helpers";
 import { WHARF } from "../support/demo";
 
 const SITE = WHARF;
@@ -16,7 +16,7 @@ const ROLE_NAV: Record<string, { has: string[]; lacks: string[] }> = {
 
 for (const [email, nav] of Object.entries(ROLE_NAV)) {
   test(`${email} signs in and sees the navigation for the role`, async ({ page }) => {
-    await signIn(page, email);
+    await signInWithForm(page, email);
     await openSite(page, SITE);
     const navigation = mainNav(page);
     const more = navigation.getByRole("button", { name: "More" });
