@@ -81,7 +81,7 @@ const SCHEMA = z.object({
       error: () => "Construction load rule must be working-area or outside-working-area (EN 1991-1-6 Table 4.2).",
     })
     .optional(),
-  concreteAsPermanent: z.boolean({ error: () => "concreteAsPermanent must be true or false." }).optional(),
+  concreteAsPermanent: z.boolean({ error: () => "Whether the wet concrete counts as a permanent load must be true or false." }).optional(),
   gammaG: numberSchema({ label: "Permanent load factor γG", min: 1, max: 2 }).optional(),
   gammaQ: numberSchema({ label: "Variable load factor γQ", min: 1, max: 2 }).optional(),
 });
@@ -95,7 +95,7 @@ export function calculateSlabLoad(request: unknown): SlabLoadResult {
     if (!isPlainObject(request)) {
       return {
         ok: false,
-        errors: [{ field: "", message: "The slab-load request must be an object with slabThicknessMm, spacingXMm and spacingYMm." }],
+        errors: [{ field: "", message: "The slab-load request must be an object with the slab thickness and the prop spacing in each direction (mm)." }],
       };
     }
     const input: Record<string, unknown> = {};
