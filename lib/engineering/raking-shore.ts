@@ -46,7 +46,7 @@ export type RakingShoreResult =
   | ({ ok: true; engineVersion: string; steps: Step[]; warnings: string[] } & RakingShoreGeometry)
   | { ok: false; errors: FieldError[] };
 
-const STATICS = "Statics: equilibrium of a pin-ended two-force member";
+const STATICS = { source: "Statics", note: "equilibrium of a pin-ended two-force member" };
 
 export function calculateRakingShore(request: unknown): RakingShoreResult {
   try {
