@@ -85,7 +85,8 @@ function codeWordsIn(answer: string): string[] {
     return [];
   }
   const messages = [parsed.error?.message ?? "", ...Object.values(parsed.error?.fields ?? {})];
-  return messages.filter((m) => (m.match(CAMEL) ?? []).some((w) => !UNIT_WORDS.has(w)));
+  // What the sender typed is echoed in quotes ('got the text "aB"'): that is their text, not our field name.
+  return messages.filter((m) => (m.replace(/"[^"]*"|“[^”]*”/g, "").match(CAMEL) ?? []).some((w) => !UNIT_WORDS.has(w)));
 }
 
 let everyRole: Client;
