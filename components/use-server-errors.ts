@@ -9,6 +9,8 @@ export type ServerErrorOptions = {
   fieldOf?: (apiField: string) => string;
   /** Whether the form has a field of that name; a message for any other field is returned instead. */
   isField?: (formField: string) => boolean;
+  /** Re-words a message in the form's units (the API speaks N and mm; a form may type kN or kip): `speakUnits`. */
+  speak?: (message: string) => string;
 };
 
 export type PlacedErrors = {
@@ -21,7 +23,9 @@ export type PlacedErrors = {
 export function placeServerErrors<T extends FieldValues>(error: ApiError, setError: UseFormSetError<T>, opts: ServerErrorOptions = {}): PlacedErrors {
   const placed: string[] = [];
   const unplaced: string[] = [];
-  for (const [apiField, message] of Object.entries(error.fields)) {
+  const speak = opts.speak ?? ((m: string) => m);
+  for (const [apiField, raw] of Object.entries(error.fields)) {
+    const message = speak(raw);
     const field = opts.fieldOf?.(apiField) ?? apiField;
     if (field === "_" || (opts.isField && !opts.isField(field))) unplaced.push(message);
     else {
@@ -29,12 +33,12 @@ export function placeServerErrors<T extends FieldValues>(error: ApiError, setErr
       placed.push(field);
     }
   }
-  if (!placed.length && !unplaced.length) unplaced.push(error.message);
+  if (!placed.length && !unplaced.length) unplaced.push(speak(error.message));
   return { placed, unplaced };
 }
 
 /** placeServerErrors bound to one form. */
 export function useServerErrors<T extends FieldValues>(setError: UseFormSetError<T>, opts: ServerErrorOptions = {}) {
-  const { fieldOf, isField } = opts;
-  return useCallback((error: ApiError) => placeServerErrors(error, setError, { fieldOf, isField }), [setError, fieldOf, isField]);
+  const { fieldOf, isField, speak } = opts;
+  return useCallback((error: ApiError) => placeServerErrors(error, setError, { fieldOf, isField, speak }), [setError, fieldOf, isField, speak]);
 }

@@ -168,7 +168,8 @@ export function plausibilityWarnings(values: CalculatorForm): Partial<Record<key
 
 // --- engine sentences in the chosen units ----------------------------------------------------------
 
-const NUM = String.raw`-?(?:\d{1,3}(?:[ \u00a0]\d{3})+|\d+)(?:\.\d+)?(?:e[+-]?\d+)?`;
+// Thousands may be grouped by a space or a comma ("50,000,000 N" from a schema's toLocaleString).
+const NUM = String.raw`-?(?:\d{1,3}(?:[ \u00a0,]\d{3})+|\d+)(?:\.\d+)?(?:e[+-]?\d+)?`;
 const SI_UNITS: [string, Quantity][] = [
   ["kPa (kN/m²)", "pressure"], ["kN/m²", "pressure"], ["kPa", "pressure"],
   ["mm⁴", "inertia"], ["mm²", "area"], ["mm", "dim"],
@@ -177,6 +178,8 @@ const SI_UNITS: [string, Quantity][] = [
 const esc = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
 const MEASURE = new RegExp(`(?<![\\w.])(${NUM})(?:(\\s?[–-]\\s?)(${NUM}))?\\s(${SI_UNITS.map(([u]) => esc(u)).join("|")})(?![\\w/²⁴])`, "g");
 const SI_FACTOR: Record<string, number> = { kN: 1000 };
+/** A unit named on its own in brackets, "must be a number (N)". */
+const BARE_UNIT = new RegExp(`\\((${SI_UNITS.map(([u]) => esc(u)).join("|")})\\)`, "g");
 
 function words(n: number): string {
   if (n === 0) return "0";
@@ -188,16 +191,24 @@ function words(n: number): string {
 /**
  * An engine sentence with every SI measure re-written in `units`: "at least 0 N (got -5000 N)"
  * becomes "at least 0 kN (got -5 kN)" on an SI form and "… kip" on a US one. Plain numbers
- * without a unit (factors, counts, clause numbers) are left alone.
+ * without a unit (factors, counts, clause numbers) are left alone. Every form that types kN (or
+ * kip) over an API in N speaks its messages through this: the calculator, the member forms, the
+ * library and the scheme form.
  */
 export function speakUnits(message: string, units: UnitSystem): string {
-  return message.replace(MEASURE, (whole, a: string, dash: string | undefined, b: string | undefined, unit: string) => {
-    const q = SI_UNITS.find(([u]) => u === unit)![1];
-    const toUser = (t: string) => words(fromSi(q, Number(t.replace(/[ \u00a0]/g, "")) * (SI_FACTOR[unit] ?? 1), units));
-    const target = UNIT_WORDS[units][q];
-    if (units === "si" && q !== "force") return whole; // already in the form's units
-    return b !== undefined ? `${toUser(a)}${dash}${toUser(b)} ${target}` : `${toUser(a)} ${target}`;
-  });
+  const unitOf = (unit: string) => SI_UNITS.find(([u]) => u === unit)![1];
+  return message
+    .replace(MEASURE, (whole, a: string, dash: string | undefined, b: string | undefined, unit: string) => {
+      const q = unitOf(unit);
+      const toUser = (t: string) => words(fromSi(q, Number(t.replace(/[ \u00a0,]/g, "")) * (SI_FACTOR[unit] ?? 1), units));
+      const target = UNIT_WORDS[units][q];
+      if (units === "si" && q !== "force") return whole; // already in the form's units
+      return b !== undefined ? `${toUser(a)}${dash}${toUser(b)} ${target}` : `${toUser(a)} ${target}`;
+    })
+    .replace(BARE_UNIT, (whole, unit: string) => {
+      const q = unitOf(unit);
+      return units === "si" && q !== "force" ? whole : `(${UNIT_WORDS[units][q]})`;
+    });
 }
 
 export type UnitSwitchMemory = { before: CalculatorForm; after: CalculatorForm };

@@ -133,17 +133,17 @@ export function runAisc360(req: CalculationRequest, designBasis: "lrfd" | "asd")
     ...design.steps,
     ...props.steps,
     ...fyRes.value.steps,
-    step(req.eMpa !== undefined ? "Modulus of elasticity (given by the user)" : "Modulus of elasticity, 29 000 ksi", "E", e, "MPa", req.eMpa !== undefined ? "User input" : "AISC 360-16 (E = 29 000 ksi, 200 000 MPa)"),
+    step(req.eMpa !== undefined ? "Modulus of elasticity (given by the user)" : "Modulus of elasticity, 29 000 ksi", "E", e, "MPa", req.eMpa !== undefined ? "User input" : "AISC 360-16 §E3"),
     ...slender.steps,
     ...eff.steps,
     step("Slenderness ratio Lc/r", "Lc/r", lambda, "", "AISC 360-16 §E2"),
-    step("Elastic buckling stress Fe = π²E/(Lc/r)²", "F_e", fe, "MPa", "AISC 360-16 §E3 (E3-4)"),
+    step("Elastic buckling stress Fe = π²E/(Lc/r)²", "F_e", fe, "MPa", "AISC 360-16 §E3 Eq. E3-4"),
     step("Limit between inelastic and elastic buckling 4.71√(E/Fy)", "4.71√(E/Fy)", limit, "", "AISC 360-16 §E3"),
     step("Fy/Fe (≤ 2.25 means inelastic buckling)", "F_y/F_e", ratio, "", "AISC 360-16 §E3"),
     inelastic
-      ? step("Critical stress Fcr = 0.658^(Fy/Fe)·Fy", "F_cr", fcr, "MPa", "AISC 360-16 §E3 (E3-2)")
-      : step("Critical stress Fcr = 0.877·Fe", "F_cr", fcr, "MPa", "AISC 360-16 §E3 (E3-3)"),
-    step("Nominal compressive strength Pn = Fcr·Ag", "P_n", pn, "N", "AISC 360-16 §E3 (E3-1)"),
+      ? step("Critical stress Fcr = 0.658^(Fy/Fe)·Fy", "F_cr", fcr, "MPa", "AISC 360-16 §E3 Eq. E3-2")
+      : step("Critical stress Fcr = 0.877·Fe", "F_cr", fcr, "MPa", "AISC 360-16 §E3 Eq. E3-3"),
+    step("Nominal compressive strength Pn = Fcr·Ag", "P_n", pn, "N", "AISC 360-16 §E3 Eq. E3-1"),
     designBasis === "lrfd"
       ? step("Design strength φc·Pn, φc = 0.90", "φ_c·P_n", capacity, "N", "AISC 360-16 §E1")
       : step("Allowable strength Pn/Ωc, Ωc = 1.67", "P_n/Ω_c", capacity, "N", "AISC 360-16 §E1"),

@@ -14,7 +14,7 @@
 import { fieldError, fmt, step } from "./steps";
 import type { BackpropStage, CalculationRequest, FieldError, MethodOutcome, Step } from "./types";
 
-export const GK_SOURCE = "Grundy & Kabaila (1963), ACI Journal 60(12), simplified method";
+export const GK_SOURCE = { source: "Grundy & Kabaila 1963, ACI Journal 60(12)", note: "simplified method" };
 
 export interface BackpropOptions {
   shoredLevels: number;
@@ -126,7 +126,7 @@ export function runBackpropSequence(req: CalculationRequest): MethodOutcome {
     step("Slab self-weight", "w", w, "kPa", "User input"),
     step(req.formworkKPa !== undefined ? "Formwork self-weight (given)" : "Formwork self-weight neglected, as in the simplified method", "w_f", f, "kPa", req.formworkKPa !== undefined ? "User input" : GK_SOURCE),
     step(req.constructionKPa !== undefined ? "Construction load while casting (given)" : "Construction load while casting not included", "q_c", c, "kPa", req.constructionKPa !== undefined ? "User input" : GK_SOURCE),
-    step("Casting cycles followed", "cycles", cycles, "", req.cycles !== undefined ? "User input" : "3n + 4 cycles (the largest ratios have been reached by then)"),
+    step("Casting cycles followed", "cycles", cycles, "", req.cycles !== undefined ? "User input" : { source: "Common practice", note: "3n + 4 cycles: the largest ratios have been reached by then" }),
     step("Assumptions: props axially rigid, slabs of equal stiffness share each load increment, ground rigid", "—", "simplified method", "", GK_SOURCE),
     step("Largest slab load, multiple of one slab's self-weight", "max S/w", r.maxSlab, "", GK_SOURCE),
     step("Largest slab load", "max S", r.maxSlab * w, "kPa", GK_SOURCE),

@@ -5,7 +5,7 @@
 // ACI 318-19 §22.6).
 
 import { fieldError, fmt, step } from "./steps";
-import type { CalculationRequest, CheckPart, FieldError, MethodOutcome, SoilId, Step } from "./types";
+import type { CalculationRequest, CheckPart, FieldError, MethodOutcome, SoilId, SourceRef, Step } from "./types";
 
 /**
  * Presumptive allowable bearing pressures, the lower end of each range of
@@ -13,17 +13,18 @@ import type { CalculationRequest, CheckPart, FieldError, MethodOutcome, SoilId, 
  * confirmed against that table, and site investigation or plate tests govern).
  * Hardcore is a common-practice figure for well-compacted granular fill.
  */
-export const SOILS: Record<SoilId, { label: string; kPa: number; source: string }> = {
-  "soft-clay": { label: "Soft clay or silt", kPa: 40, source: "Common practice (below BS 8004:1986 Table 1 'soft clays', < 75 kPa)" },
-  "firm-clay": { label: "Firm clay", kPa: 75, source: "BS 8004:1986 Table 1, firm clay 75–150 kPa, lower value (to be confirmed against the table)" },
-  "stiff-clay": { label: "Stiff clay", kPa: 150, source: "BS 8004:1986 Table 1, stiff clay 150–300 kPa, lower value (to be confirmed against the table)" },
-  "loose-sand": { label: "Loose sand", kPa: 50, source: "Common practice (BS 8004:1986 Table 1 'loose sand', < 100 kPa)" },
-  "medium-sand": { label: "Medium dense sand", kPa: 100, source: "BS 8004:1986 Table 1, medium dense sand 100–300 kPa, lower value (to be confirmed against the table)" },
-  "dense-gravel": { label: "Dense gravel or dense sand and gravel", kPa: 200, source: "BS 8004:1986 Table 1, dense gravel > 600 kPa; 200 kPa used (common practice, to be confirmed)" },
-  hardcore: { label: "Well-compacted hardcore", kPa: 100, source: "Common practice for compacted granular fill" },
+const BS8004: Pick<SourceRef, "source" | "toConfirm"> = { source: "BS 8004:1986 Table 1", toConfirm: "value to be confirmed against BS 8004:1986 Table 1" };
+export const SOILS: Record<SoilId, { label: string; kPa: number } & SourceRef> = {
+  "soft-clay": { label: "Soft clay or silt", kPa: 40, source: "Common practice", note: "below BS 8004:1986 Table 1 'soft clays', < 75 kPa" },
+  "firm-clay": { label: "Firm clay", kPa: 75, ...BS8004, note: "firm clay 75–150 kPa, lower value" },
+  "stiff-clay": { label: "Stiff clay", kPa: 150, ...BS8004, note: "stiff clay 150–300 kPa, lower value" },
+  "loose-sand": { label: "Loose sand", kPa: 50, source: "Common practice", note: "BS 8004:1986 Table 1 'loose sand', < 100 kPa" },
+  "medium-sand": { label: "Medium dense sand", kPa: 100, ...BS8004, note: "medium dense sand 100–300 kPa, lower value" },
+  "dense-gravel": { label: "Dense gravel or dense sand and gravel", kPa: 200, ...BS8004, note: "dense gravel > 600 kPa; 200 kPa used, common practice" },
+  hardcore: { label: "Well-compacted hardcore", kPa: 100, source: "Common practice", note: "compacted granular fill" },
 };
 
-export const SOLE_PLATE_SPREAD = "Common practice: load spreads at 45° through the sole plate thickness, within the plate's plan size";
+export const SOLE_PLATE_SPREAD = { source: "Common practice", note: "load spreads at 45° through the sole plate thickness, within the plate's plan size" };
 
 /** EN 1992-1-1 §6.4.4 (6.47) and (6.3N): v_Rd,c = max(C·k·(100ρl·fck)^(1/3), 0.035·k^1.5·√fck), MPa. */
 export function en1992PunchingStress(dMm: number, fckMpa: number, rhoL: number): { k: number; vRdc: number; vMin: number } {
@@ -99,23 +100,23 @@ export function runBaseBearing(req: CalculationRequest): MethodOutcome {
   }
   const area = bearA * bearB;
   const pressureKPa = (N / area) * 1000; // N/mm² = MPa → ×1000 kPa
-  steps.push(step("Bearing area", "A", area, "mm²", "Geometry"), step("Bearing pressure q = N/A", "q", pressureKPa, "kPa", "Statics (uniform pressure, concentric load)"));
+  steps.push(step("Bearing area", "A", area, "mm²", "Geometry"), step("Bearing pressure q = N/A", "q", pressureKPa, "kPa", { source: "Statics", note: "uniform pressure, concentric load" }));
 
   if (req.allowablePressureKPa !== undefined || req.soil !== undefined) {
     let allow: number;
-    let source: string;
+    let source: SourceRef;
     if (req.allowablePressureKPa !== undefined) {
       allow = req.allowablePressureKPa;
-      source = "User input";
+      source = { source: "User input" };
       if (req.soil !== undefined) warnings.push(`The allowable pressure you gave (${fmt(allow)} kPa) is used instead of the value for ${SOILS[req.soil].label.toLowerCase()}.`);
     } else {
       const soil = SOILS[req.soil as SoilId];
       allow = soil.kPa;
-      source = soil.source;
+      source = { source: soil.source, toConfirm: soil.toConfirm, note: soil.note };
       warnings.push(`${fmt(allow)} kPa for ${soil.label.toLowerCase()} is a presumptive value for a first check (common practice); a site investigation or plate test governs, and wet or disturbed ground can carry far less.`);
     }
     steps.push(step("Allowable bearing pressure", "q_a", allow, "kPa", source), step("q/q_a", "q/q_a", pressureKPa / allow, "", "Comparison"));
-    checks.push({ name: "Bearing pressure on the ground", demand: pressureKPa, resistance: allow, unit: "kPa", utilisation: pressureKPa / allow, source });
+    checks.push({ name: "Bearing pressure on the ground", demand: pressureKPa, resistance: allow, unit: "kPa", utilisation: pressureKPa / allow, source: source.source });
     capacities.push((allow / 1000) * area);
   }
 
@@ -147,15 +148,15 @@ export function runBaseBearing(req: CalculationRequest): MethodOutcome {
       const vMax = 0.4 * nu * (fck / 1.5);
       const vEd0 = N / (u0 * d);
       steps.push(
-        step("k = 1 + √(200/d) ≤ 2", "k", p.k, "", "EN 1992-1-1 §6.4.4(1) (6.47)"),
+        step("k = 1 + √(200/d) ≤ 2", "k", p.k, "", "EN 1992-1-1 §6.4.4(1) Eq. 6.47"),
         step(req.rhoL !== undefined ? "Reinforcement ratio ρl (given)" : "Reinforcement ratio ρl not given: the minimum v_min is used", "ρl", rho, "", req.rhoL !== undefined ? "User input" : "EN 1992-1-1 §6.4.4(1)"),
-        step("v_min = 0.035·k^1.5·√f_ck", "v_min", p.vMin, "MPa", "EN 1992-1-1 §6.2.2 (6.3N)"),
-        step("Punching resistance v_Rd,c = max(0.12·k·(100ρl·f_ck)^(1/3), v_min)", "v_Rd,c", p.vRdc, "MPa", "EN 1992-1-1 §6.4.4 (6.47), C_Rd,c = 0.18/γc"),
+        step("v_min = 0.035·k^1.5·√f_ck", "v_min", p.vMin, "MPa", "EN 1992-1-1 §6.2.2 Eq. 6.3N"),
+        step("Punching resistance v_Rd,c = max(0.12·k·(100ρl·f_ck)^(1/3), v_min)", "v_Rd,c", p.vRdc, "MPa", { source: "EN 1992-1-1 §6.4.4 Eq. 6.47", note: "C_Rd,c = 0.18/γc" }),
         step("Basic control perimeter at 2d, u1 = 2(a' + b') + 4πd", "u1", u1, "mm", "EN 1992-1-1 §6.4.2 Fig. 6.13"),
-        step("Punching shear stress v_Ed = β·N/(u1·d), β = 1.0 (concentric)", "v_Ed", vEd, "MPa", "EN 1992-1-1 §6.4.3 (6.38)"),
+        step("Punching shear stress v_Ed = β·N/(u1·d), β = 1.0 (concentric)", "v_Ed", vEd, "MPa", "EN 1992-1-1 §6.4.3 Eq. 6.38"),
         step("Perimeter of the loaded area", "u0", u0, "mm", "EN 1992-1-1 §6.4.5(3)"),
         step("Shear stress at the loaded area v_Ed,0 = N/(u0·d)", "v_Ed,0", vEd0, "MPa", "EN 1992-1-1 §6.4.5(3)"),
-        step("Maximum v_Rd,max = 0.4·ν·f_cd, ν = 0.6(1 − f_ck/250), f_cd = f_ck/1.5", "v_Rd,max", vMax, "MPa", "EN 1992-1-1 §6.4.5(3) (6.53) with (6.6N)"),
+        step("Maximum v_Rd,max = 0.4·ν·f_cd, ν = 0.6(1 − f_ck/250), f_cd = f_ck/1.5", "v_Rd,max", vMax, "MPa", "EN 1992-1-1 §6.4.5(3) Eq. 6.53 with Eq. 6.6N"),
       );
       checks.push(
         { name: "Punching at the basic control perimeter", demand: vEd, resistance: p.vRdc, unit: "MPa", utilisation: vEd / p.vRdc, source: "EN 1992-1-1 §6.4.4" },

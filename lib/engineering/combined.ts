@@ -82,7 +82,7 @@ export function combinedSteel(req: CalculationRequest, input: CombinedInput, lab
   const warnings = [...fyRes.value.warnings];
   const wel = leastElasticModulus(section, props) as number;
   const steps: Step[] = [...design.steps, ...props.steps, ...fyRes.value.steps];
-  steps.push(step("Elastic section modulus about the weaker axis W_el = I_min/(extreme fibre distance)", "W_el", wel, "mm³", "Section geometry (elementary mechanics)"));
+  steps.push(step("Elastic section modulus about the weaker axis W_el = I_min/(extreme fibre distance)", "W_el", wel, "mm³", "Section geometry"));
   const n = input.axialN;
   const moment = (x: number) => input.fixedMomentNmm + x * input.leverMm;
   const m0 = moment(n);
@@ -117,16 +117,16 @@ export function combinedSteel(req: CalculationRequest, input: CombinedInput, lab
       ...eff.steps,
       ...curve.steps,
       step("Elastic critical load N_cr = π²·E·I_min/L_cr²", "N_cr", ncr, "N", EULER_SOURCE),
-      step("Non-dimensional slenderness λ̄ = √(A·fy/N_cr)", "λ̄", lambdaBar, "", "EN 1993-1-1 §6.3.1.3 (6.50)"),
-      step("Reduction factor χ", "χ", chi, "", "EN 1993-1-1 §6.3.1.2 (6.49)"),
-      step("Buckling resistance χ·A·fy/γM1", "N_b,Rd", nbrd, "N", "EN 1993-1-1 §6.3.1.1 (6.47)"),
-      step("Bending resistance W_el·fy/γM1 (elastic, on the safe side)", "M_Rd", mrd, "N·mm", "EN 1993-1-1 §6.2.5 (6.14)"),
-      step("Axial force", "N_Ed", n, "N", "From the load and geometry above"),
-      step("First-order moment", "M_Ed,1", m0, "N·mm", "From the load and geometry above"),
-      step("Second-order amplification 1/(1 − N_Ed/N_cr)", "k", amp, "", "EN 1993-1-1 §5.2.2(5)/Annex A (C_m = 1.0)"),
+      step("Non-dimensional slenderness λ̄ = √(A·fy/N_cr)", "λ̄", lambdaBar, "", "EN 1993-1-1 §6.3.1.3 Eq. 6.50"),
+      step("Reduction factor χ", "χ", chi, "", "EN 1993-1-1 §6.3.1.2 Eq. 6.49"),
+      step("Buckling resistance χ·A·fy/γM1", "N_b,Rd", nbrd, "N", "EN 1993-1-1 §6.3.1.1 Eq. 6.47"),
+      step("Bending resistance W_el·fy/γM1 (elastic, on the safe side)", "M_Rd", mrd, "N·mm", "EN 1993-1-1 §6.2.5 Eq. 6.14"),
+      step("Axial force", "N_Ed", n, "N", { source: "Statics", note: "from the load and geometry above" }),
+      step("First-order moment", "M_Ed,1", m0, "N·mm", { source: "Statics", note: "from the load and geometry above" }),
+      step("Second-order amplification 1/(1 − N_Ed/N_cr)", "k", amp, "", { source: "EN 1993-1-1 §5.2.2(5) and Annex A", note: "C_m = 1.0" }),
       step("Amplified moment M_Ed = k·M_Ed,1", "M_Ed", med, "N·mm", "EN 1993-1-1 §6.3.3"),
-      step("Interaction N_Ed/N_b,Rd + M_Ed/M_Rd ≤ 1", "Σ", u, "", "EN 1993-1-1 §6.3.3 (6.61), simplified"),
-      step("Axial force at which the interaction reaches 1 (same lever arm and self-weight moment)", "N_max", capacity, "N", "EN 1993-1-1 §6.3.3 (6.61), simplified"),
+      step("Interaction N_Ed/N_b,Rd + M_Ed/M_Rd ≤ 1", "Σ", u, "", { source: "EN 1993-1-1 §6.3.3 Eq. 6.61", note: "simplified" }),
+      step("Axial force at which the interaction reaches 1 (same lever arm and self-weight moment)", "N_max", capacity, "N", { source: "EN 1993-1-1 §6.3.3 Eq. 6.61", note: "simplified" }),
     );
     return {
       ok: true,
@@ -136,7 +136,7 @@ export function combinedSteel(req: CalculationRequest, input: CombinedInput, lab
       checks: [
         { name: "Axial buckling N_Ed/N_b,Rd", demand: n, resistance: nbrd, unit: "N", utilisation: uN, source: "EN 1993-1-1 §6.3.1" },
         { name: "Bending M_Ed/M_Rd (amplified)", demand: med, resistance: mrd, unit: "N·mm", utilisation: uM, source: "EN 1993-1-1 §6.2.5" },
-        { name: "Combined N + M", demand: u, resistance: 1, unit: "", utilisation: u, source: "EN 1993-1-1 §6.3.3 (6.61)" },
+        { name: "Combined N + M", demand: u, resistance: 1, unit: "", utilisation: u, source: "EN 1993-1-1 §6.3.3 Eq. 6.61" },
       ],
       steps,
       warnings,
@@ -179,18 +179,18 @@ export function combinedSteel(req: CalculationRequest, input: CombinedInput, lab
   steps.push(
     ...slender.steps,
     ...eff.steps,
-    step("Critical stress F_cr", "F_cr", fcr, "MPa", "AISC 360-16 §E3 (E3-2)/(E3-3)"),
+    step("Critical stress F_cr", "F_cr", fcr, "MPa", "AISC 360-16 §E3 Eq. E3-2/E3-3"),
     lrfd ? step("Available axial strength φc·Pn", "P_c", pc, "N", "AISC 360-16 §E1") : step("Available axial strength Pn/Ωc", "P_c", pc, "N", "AISC 360-16 §E1"),
     lrfd
       ? step("Available flexural strength 0.90·F_y·S (elastic, on the safe side)", "M_c", mc, "N·mm", "AISC 360-16 §F1, §F7/§F8")
       : step("Available flexural strength F_y·S/1.67 (elastic, on the safe side)", "M_c", mc, "N·mm", "AISC 360-16 §F1, §F7/§F8"),
-    step("Elastic critical load in the plane of bending P_e1 = π²EI/L² (K1 = 1)", "P_e1", pe1, "N", "AISC 360-16 Appendix 8 (A-8-5)"),
-    step(`Amplifier B1 = C_m/(1 − αP_r/P_e1), C_m = 1.0, α = ${alpha}`, "B1", b1, "", "AISC 360-16 Appendix 8 (A-8-3)"),
-    step("Required axial strength", "P_r", n, "N", "From the load and geometry above"),
-    step("Required flexural strength M_r = B1·M_1st", "M_r", mr, "N·mm", "AISC 360-16 Appendix 8 (A-8-1)"),
+    step("Elastic critical load in the plane of bending P_e1 = π²EI/L² (K1 = 1)", "P_e1", pe1, "N", "AISC 360-16 Appendix 8 Eq. A-8-5"),
+    step(`Amplifier B1 = C_m/(1 − αP_r/P_e1), C_m = 1.0, α = ${alpha}`, "B1", b1, "", "AISC 360-16 Appendix 8 Eq. A-8-3"),
+    step("Required axial strength", "P_r", n, "N", { source: "Statics", note: "from the load and geometry above" }),
+    step("Required flexural strength M_r = B1·M_1st", "M_r", mr, "N·mm", "AISC 360-16 Appendix 8 Eq. A-8-1"),
     ratioP >= 0.2
-      ? step("P_r/P_c ≥ 0.2: P_r/P_c + 8/9·M_r/M_c ≤ 1", "Σ", u, "", "AISC 360-16 §H1.1 (H1-1a)")
-      : step("P_r/P_c < 0.2: P_r/(2P_c) + M_r/M_c ≤ 1", "Σ", u, "", "AISC 360-16 §H1.1 (H1-1b)"),
+      ? step("P_r/P_c ≥ 0.2: P_r/P_c + 8/9·M_r/M_c ≤ 1", "Σ", u, "", "AISC 360-16 §H1.1 Eq. H1-1a")
+      : step("P_r/P_c < 0.2: P_r/(2P_c) + M_r/M_c ≤ 1", "Σ", u, "", "AISC 360-16 §H1.1 Eq. H1-1b"),
     step("Axial force at which the interaction reaches 1 (same lever arm and self-weight moment)", "P_max", capacity, "N", "AISC 360-16 §H1.1"),
   );
   return {
@@ -201,7 +201,7 @@ export function combinedSteel(req: CalculationRequest, input: CombinedInput, lab
     checks: [
       { name: "Axial P_r/P_c", demand: n, resistance: pc, unit: "N", utilisation: ratioP, source: "AISC 360-16 §E1" },
       { name: "Bending M_r/M_c (amplified)", demand: mr, resistance: mc, unit: "N·mm", utilisation: mr / mc, source: "AISC 360-16 §F1" },
-      { name: "Combined P + M", demand: u, resistance: 1, unit: "", utilisation: u, source: ratioP >= 0.2 ? "AISC 360-16 (H1-1a)" : "AISC 360-16 (H1-1b)" },
+      { name: "Combined P + M", demand: u, resistance: 1, unit: "", utilisation: u, source: ratioP >= 0.2 ? "AISC 360-16 §H1.1 Eq. H1-1a" : "AISC 360-16 §H1.1 Eq. H1-1b" },
     ],
     steps,
     warnings,

@@ -3,7 +3,7 @@
 // assumed, because real site connections are never fully rigid.
 
 import { fmt, step } from "./steps";
-import type { EndCondition, Step } from "./types";
+import type { EndCondition, SourceRef, Step } from "./types";
 
 export interface EndConditionInfo {
   id: EndCondition;
@@ -24,7 +24,7 @@ const TABLE = "AISC 360-16 Commentary Table C-A-7.1";
  * practice for Eurocode work uses the nominal effective lengths of BS 5950-1
  * Table 22 (steel) and BS 5268-2 Table 19 (timber), which are used here.
  */
-export const K_TABLES: Record<KTable, { source: string; k: Record<EndCondition, number>; note?: string }> = {
+export const K_TABLES: Record<KTable, { source: string | SourceRef; k: Record<EndCondition, number>; note?: string }> = {
   aisc: {
     source: TABLE,
     k: { "fixed-fixed": 0.65, "fixed-pinned": 0.8, "fixed-sway": 1.2, "pinned-pinned": 1.0, "fixed-free": 2.1, "pinned-sway": 2.0 },
@@ -34,12 +34,12 @@ export const K_TABLES: Record<KTable, { source: string; k: Record<EndCondition, 
     k: { "fixed-fixed": 0.65, "fixed-pinned": 0.8, "fixed-sway": 1.2, "pinned-pinned": 1.0, "fixed-free": 2.1, "pinned-sway": 2.4 },
   },
   "en-steel": {
-    source: "BS 5950-1:2000 Table 22 nominal effective lengths (UK practice with EN 1993-1-1; value to be confirmed against the table)",
+    source: { source: "BS 5950-1:2000 Table 22", note: "nominal effective lengths, UK practice with EN 1993-1-1", toConfirm: "value to be confirmed against BS 5950-1:2000 Table 22" },
     k: { "fixed-fixed": 0.7, "fixed-pinned": 0.85, "fixed-sway": 1.2, "pinned-pinned": 1.0, "fixed-free": 2.0, "pinned-sway": 2.0 },
     note: "pinned-sway is not in BS 5950-1 Table 22; the theoretical 2.0 is used.",
   },
   "en-timber": {
-    source: "BS 5268-2:2002 Table 19 effective lengths (UK practice with EN 1995-1-1; value to be confirmed against the table)",
+    source: { source: "BS 5268-2:2002 Table 19", note: "effective lengths, UK practice with EN 1995-1-1", toConfirm: "value to be confirmed against BS 5268-2:2002 Table 19" },
     k: { "fixed-fixed": 0.7, "fixed-pinned": 0.85, "fixed-sway": 1.5, "pinned-pinned": 1.0, "fixed-free": 2.0, "pinned-sway": 2.0 },
     note: "pinned-sway is not in BS 5268-2 Table 19; the theoretical 2.0 is used.",
   },
@@ -83,7 +83,7 @@ export function effectiveLength(lengthMm: number, opts: { k?: number; ends?: End
   const TABLE = t.source;
   steps.push(step("System length between restraints", "L", lengthMm, "mm", "User input"));
   steps.push(step(`End conditions: ${info.label}`, "—", ends, "", TABLE));
-  steps.push(step("Theoretical effective length factor", "K_theory", info.theoreticalK, "", "Elastic stability (e.g. Timoshenko & Gere §2.3)"));
+  steps.push(step("Theoretical effective length factor", "K_theory", info.theoreticalK, "", "Timoshenko & Gere §2.3"));
   steps.push(step("Recommended design effective length factor", "K_design", info.designK, "", TABLE));
   let k: number;
   if (opts.k !== undefined) {

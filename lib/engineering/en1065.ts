@@ -15,8 +15,8 @@
 import { fieldError, fmt, step } from "./steps";
 import type { CalculationRequest, FieldError, MethodOutcome, PropClass, Step } from "./types";
 
-export const EN1065_SOURCE = "EN 1065:1998 Table 2 (nominal characteristic strength; value to be confirmed against EN 1065 Table 2)";
-const FACTOR_SOURCE = "EN 1065 / EN 12812 (value to be confirmed against EN 1065 clause 8)";
+export const EN1065_SOURCE = { source: "EN 1065:1998 Table 2", note: "nominal characteristic strength", toConfirm: "value to be confirmed against EN 1065 Table 2" };
+const FACTOR_SOURCE = { source: "EN 1065:1998 clause 8", note: "with EN 12812", toConfirm: "value to be confirmed against EN 1065 clause 8" };
 
 /** kN·m coefficient for classes A–C and kN constant for D–E. */
 export const EN1065_CLASS: Record<PropClass, { kind: "inverse-square"; coefficientKnM: number } | { kind: "constant"; kN: number }> = {
@@ -91,10 +91,10 @@ export function runEn1065(req: CalculationRequest): MethodOutcome {
   const def = EN1065_CLASS[cls];
   const steps: Step[] = [
     step("Prop class", "class", cls, "", "EN 1065:1998 §4"),
-    step("Maximum extension", "l_max", lMax, "mm", "User input (prop marking)"),
+    step("Maximum extension", "l_max", lMax, "mm", { source: "User input", note: "from the prop's marking" }),
     minGiven
-      ? step("Minimum extension (given)", "l_min", lMin as number, "mm", "User input (prop marking)")
-      : step("Minimum extension not given: the range below the extension is not checked", "l_min", "not given", "", "Prop marking needed"),
+      ? step("Minimum extension (given)", "l_min", lMin as number, "mm", { source: "User input", note: "from the prop's marking" })
+      : step("Minimum extension not given: the range below the extension is not checked", "l_min", "not given", "", { source: "User input", note: "not given: read it from the prop's marking" }),
     step("Extension used", "l", l, "mm", "User input"),
     def.kind === "inverse-square"
       ? step(`Nominal characteristic strength R_k = ${def.coefficientKnM}·l_max/l² (kN, lengths in m)`, "R_k", rk, "N", EN1065_SOURCE)

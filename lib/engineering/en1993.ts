@@ -82,7 +82,7 @@ export function checkEnClass(section: Section, fyMpa: number): { errors: FieldEr
   if (section.shape === "chs") {
     const ratio = section.dMm / section.tMm;
     const limit = 90 * eps * eps;
-    steps.push(step("Tube slenderness d/t (Class 3 limit 90ε², ε = √(235/fy))", "d/t", ratio, "", "EN 1993-1-1 Table 5.2 (sheet 3)"));
+    steps.push(step("Tube slenderness d/t (Class 3 limit 90ε², ε = √(235/fy))", "d/t", ratio, "", "EN 1993-1-1 Table 5.2 sheet 3"));
     if (ratio > limit) {
       return {
         errors: [
@@ -100,7 +100,7 @@ export function checkEnClass(section: Section, fyMpa: number): { errors: FieldEr
     const c = Math.max(section.bMm, section.hMm) - 3 * section.tMm;
     const ratio = c / section.tMm;
     const limit = 42 * eps;
-    steps.push(step("Flat width to thickness c/t, c = b − 3t (Class 3 limit 42ε)", "c/t", ratio, "", "EN 1993-1-1 Table 5.2 (sheet 1)"));
+    steps.push(step("Flat width to thickness c/t, c = b − 3t (Class 3 limit 42ε)", "c/t", ratio, "", "EN 1993-1-1 Table 5.2 sheet 1"));
     if (ratio > limit) {
       return {
         errors: [
@@ -177,16 +177,16 @@ export function runEn1993(req: CalculationRequest): MethodOutcome {
     ...cls.steps,
     ...eff.steps,
     step(req.eMpa !== undefined ? "Modulus of elasticity (given by the user)" : "Modulus of elasticity", "E", e, "MPa", req.eMpa !== undefined ? "User input" : "EN 1993-1-1 §3.2.6(1)"),
-    step("Squash load A·fy", "N_pl", npl, "N", "EN 1993-1-1 §6.2.4 (6.10)"),
+    step("Squash load A·fy", "N_pl", npl, "N", "EN 1993-1-1 §6.2.4 Eq. 6.10"),
     step("Elastic critical load N_cr = π²·E·I_min/L_cr²", "N_cr", ncr, "N", EULER_SOURCE),
     step("Slenderness ratio L_cr/i", "λ", lambda, "", "Definition"),
-    step("Non-dimensional slenderness λ̄ = √(A·fy/N_cr)", "λ̄", lambdaBar, "", "EN 1993-1-1 §6.3.1.3 (6.50)"),
+    step("Non-dimensional slenderness λ̄ = √(A·fy/N_cr)", "λ̄", lambdaBar, "", "EN 1993-1-1 §6.3.1.3 Eq. 6.50"),
     ...curveRes.steps,
     step("Imperfection factor", "α", alpha, "", "EN 1993-1-1 Table 6.1"),
-    step("Φ = 0.5·[1 + α(λ̄ − 0.2) + λ̄²]", "Φ", phi, "", "EN 1993-1-1 §6.3.1.2 (6.49)"),
-    step("Reduction factor χ = 1/(Φ + √(Φ² − λ̄²)) ≤ 1", "χ", chi, "", "EN 1993-1-1 §6.3.1.2 (6.49)"),
+    step("Φ = 0.5·[1 + α(λ̄ − 0.2) + λ̄²]", "Φ", phi, "", "EN 1993-1-1 §6.3.1.2 Eq. 6.49"),
+    step("Reduction factor χ = 1/(Φ + √(Φ² − λ̄²)) ≤ 1", "χ", chi, "", "EN 1993-1-1 §6.3.1.2 Eq. 6.49"),
     step(req.gammaM1 !== undefined ? "Partial factor (given by the user)" : "Partial factor (recommended value)", "γM1", gammaM1, "", req.gammaM1 !== undefined ? "User input" : "EN 1993-1-1 §6.1(1) NOTE 2B"),
-    step("Design buckling resistance N_b,Rd = χ·A·fy/γM1", "N_b,Rd", nbrd, "N", "EN 1993-1-1 §6.3.1.1 (6.47)"),
+    step("Design buckling resistance N_b,Rd = χ·A·fy/γM1", "N_b,Rd", nbrd, "N", "EN 1993-1-1 §6.3.1.1 Eq. 6.47"),
   ];
   return {
     ok: true,

@@ -103,14 +103,14 @@ export function runEn1995(req: CalculationRequest): MethodOutcome {
     step(req.e005Mpa !== undefined ? "5th-percentile modulus (given)" : "5th-percentile modulus of elasticity", "E_0,05", e005, "MPa", req.e005Mpa !== undefined ? "User input" : classSource),
     ...eff.steps,
     step("Slenderness ratio λ = L_ef/i", "λ", lambda, "", "EN 1995-1-1 §6.3.2(1)"),
-    step("Relative slenderness λ_rel = (λ/π)·√(f_c,0,k/E_0,05)", "λ_rel", lambdaRel, "", "EN 1995-1-1 §6.3.2 (6.21)/(6.22)"),
-    step(req.betaC !== undefined ? "Straightness factor (given)" : `Straightness factor, ${timberType === "glulam" || timberType === "lvl" ? "glulam and LVL" : "solid timber"}`, "β_c", betaC, "", req.betaC !== undefined ? "User input" : "EN 1995-1-1 §6.3.2 (6.29)"),
+    step("Relative slenderness λ_rel = (λ/π)·√(f_c,0,k/E_0,05)", "λ_rel", lambdaRel, "", "EN 1995-1-1 §6.3.2 Eq. 6.21/6.22"),
+    step(req.betaC !== undefined ? "Straightness factor (given)" : `Straightness factor, ${timberType === "glulam" || timberType === "lvl" ? "glulam and LVL" : "solid timber"}`, "β_c", betaC, "", req.betaC !== undefined ? "User input" : "EN 1995-1-1 §6.3.2 Eq. 6.29"),
   ];
   if (lambdaRel <= 0.3) {
-    steps.push(step("λ_rel ≤ 0.3: no buckling reduction", "k_c", kc, "", "EN 1995-1-1 §6.3.2(2) (6.19)/(6.20)"));
+    steps.push(step("λ_rel ≤ 0.3: no buckling reduction", "k_c", kc, "", "EN 1995-1-1 §6.3.2(2) Eq. 6.19/6.20"));
   } else {
-    steps.push(step("k = 0.5·[1 + β_c(λ_rel − 0.3) + λ_rel²]", "k", kFactor, "", "EN 1995-1-1 §6.3.2 (6.27)/(6.28)"));
-    steps.push(step("Instability factor k_c = 1/(k + √(k² − λ_rel²))", "k_c", kc, "", "EN 1995-1-1 §6.3.2 (6.25)/(6.26)"));
+    steps.push(step("k = 0.5·[1 + β_c(λ_rel − 0.3) + λ_rel²]", "k", kFactor, "", "EN 1995-1-1 §6.3.2 Eq. 6.27/6.28"));
+    steps.push(step("Instability factor k_c = 1/(k + √(k² − λ_rel²))", "k_c", kc, "", "EN 1995-1-1 §6.3.2 Eq. 6.25/6.26"));
   }
   steps.push(
     step(
@@ -121,8 +121,8 @@ export function runEn1995(req: CalculationRequest): MethodOutcome {
       req.kmod !== undefined ? "User input" : "EN 1995-1-1 Table 3.1",
     ),
     step(req.gammaM !== undefined ? "Partial factor (given)" : "Partial factor for the material", "γ_M", gammaM, "", req.gammaM !== undefined ? "User input" : "EN 1995-1-1 §2.4.1 Table 2.3"),
-    step("Design compressive strength f_c,0,d = k_mod·f_c,0,k/γ_M", "f_c,0,d", fc0d, "MPa", "EN 1995-1-1 §2.4.1 (2.14)"),
-    step("Design resistance N_c,Rd = k_c·f_c,0,d·A", "N_c,Rd", nrd, "N", "EN 1995-1-1 §6.3.2 (6.23)/(6.24)"),
+    step("Design compressive strength f_c,0,d = k_mod·f_c,0,k/γ_M", "f_c,0,d", fc0d, "MPa", "EN 1995-1-1 §2.4.1 Eq. 2.14"),
+    step("Design resistance N_c,Rd = k_c·f_c,0,d·A", "N_c,Rd", nrd, "N", "EN 1995-1-1 §6.3.2 Eq. 6.23/6.24"),
     step("Elastic critical load with E_0,05 (for reference)", "N_cr", ncr, "N", EULER_SOURCE),
   );
   return {

@@ -9,7 +9,7 @@ export function eulerLoad(eMpa: number, iMm4: number, lcrMm: number): number {
   return (Math.PI * Math.PI * eMpa * iMm4) / (lcrMm * lcrMm);
 }
 
-export const EULER_SOURCE = "Euler (1744); e.g. Timoshenko & Gere, Theory of Elastic Stability, §2.2";
+export const EULER_SOURCE = { source: "Timoshenko & Gere, Theory of Elastic Stability §2.2", note: "Euler 1744" };
 
 export function runEuler(req: CalculationRequest): MethodOutcome {
   const sec = requireSection(req, ["chs", "rhs", "rect", "round", "given"], "The Euler load");

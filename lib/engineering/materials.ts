@@ -3,7 +3,7 @@
 // could not be re-read from the standard while writing this; the working
 // prints that note so a checker confirms them against a copy of the standard.
 
-import type { LoadDuration, ServiceClass, TimberType } from "./types";
+import type { LoadDuration, ServiceClass, SourceRef, TimberType } from "./types";
 
 /** 1 ksi = 1000 lbf/in² = 1000 × 4.4482216152605 N / 645.16 mm² (exact definitions of lbf and inch). */
 export const KSI_TO_MPA = (1000 * 4.4482216152605) / 645.16;
@@ -21,15 +21,20 @@ export interface SteelGrade {
   fyThickMpa?: number;
   /** Yield by thickness from the product standard: [thickness up to (mm), f_y (MPa)], thinnest first. */
   productBands?: readonly (readonly [number, number])[];
-  productSource?: string;
+  productSource?: SourceRef;
   /** Hollow-section yield where it differs from the shaped value (ASTM A500 round vs rectangular). */
   fyRoundMpa?: number;
   family: "EN" | "ASTM";
-  source: string;
+  source: SourceRef;
 }
 
-const EN_TABLE_3_1 = "EN 1993-1-1 Table 3.1 (nominal fy, EN 10025-2 / EN 10210-1 / EN 10219-1)";
-const EN10025 = "EN 10025-2:2019 Table 7 minimum yield strength ReH by nominal thickness (value to be confirmed against the table; EN 10210-1 / EN 10219-1 use the same steps to 40 mm)";
+const EN_TABLE_3_1: SourceRef = { source: "EN 1993-1-1 Table 3.1", note: "nominal f_y of EN 10025-2, EN 10210-1 and EN 10219-1 steels" };
+const EN10025: SourceRef = {
+  source: "EN 10025-2:2019 Table 7",
+  note: "minimum yield strength ReH by nominal thickness; EN 10210-1 and EN 10219-1 use the same steps to 40 mm",
+  toConfirm: "value to be confirmed against EN 10025-2:2019 Table 7",
+};
+const EN10025_4: SourceRef = { ...EN10025, source: "EN 10025-4 / EN 10025-3", toConfirm: "value to be confirmed against EN 10025-4 and EN 10025-3" };
 const BANDS = (a: number, b: number, c: number, d: number, e: number) =>
   [
     [16, a],
@@ -39,23 +44,24 @@ const BANDS = (a: number, b: number, c: number, d: number, e: number) =>
     [100, e],
   ] as const;
 
-const AISC_TABLE_2_4 = "AISC Steel Construction Manual (15th ed.) Table 2-4 / ASTM specification minimum Fy (value to be confirmed against Table 2-4)";
+/** AISC Manual 15th edition Table 2-4 (ASTM specification minimum Fy), with the grade's values as the note. */
+const AISC_TABLE_2_4 = (note: string): SourceRef => ({ source: "AISC Steel Construction Manual 15th ed. Table 2-4", note: `ASTM specification minimum Fy: ${note}`, toConfirm: "value to be confirmed against AISC Manual Table 2-4" });
 
 export const STEEL_GRADES: readonly SteelGrade[] = [
   { id: "S235", label: "S235", fyMpa: 235, tLimitMm: 40, fyThickMpa: 215, productBands: BANDS(235, 225, 215, 215, 215), productSource: EN10025, family: "EN", source: EN_TABLE_3_1 },
   { id: "S275", label: "S275", fyMpa: 275, tLimitMm: 40, fyThickMpa: 255, productBands: BANDS(275, 265, 255, 245, 235), productSource: EN10025, family: "EN", source: EN_TABLE_3_1 },
   { id: "S355", label: "S355", fyMpa: 355, tLimitMm: 40, fyThickMpa: 335, productBands: BANDS(355, 345, 335, 325, 315), productSource: EN10025, family: "EN", source: EN_TABLE_3_1 },
-  { id: "S420", label: "S420", fyMpa: 420, tLimitMm: 40, fyThickMpa: 390, productBands: BANDS(420, 400, 390, 370, 360), productSource: EN10025.replace("EN 10025-2:2019 Table 7", "EN 10025-4 / EN 10025-3"), family: "EN", source: EN_TABLE_3_1 },
-  { id: "S460", label: "S460", fyMpa: 460, tLimitMm: 40, fyThickMpa: 430, productBands: BANDS(460, 440, 430, 410, 400), productSource: EN10025.replace("EN 10025-2:2019 Table 7", "EN 10025-4 / EN 10025-3"), family: "EN", source: EN_TABLE_3_1 },
-  { id: "A36", label: "ASTM A36", fyMpa: 36 * KSI_TO_MPA, family: "ASTM", source: AISC_TABLE_2_4 + ": A36 Fy = 36 ksi" },
-  { id: "A992", label: "ASTM A992", fyMpa: 50 * KSI_TO_MPA, family: "ASTM", source: AISC_TABLE_2_4 + ": A992 Fy = 50 ksi" },
+  { id: "S420", label: "S420", fyMpa: 420, tLimitMm: 40, fyThickMpa: 390, productBands: BANDS(420, 400, 390, 370, 360), productSource: EN10025_4, family: "EN", source: EN_TABLE_3_1 },
+  { id: "S460", label: "S460", fyMpa: 460, tLimitMm: 40, fyThickMpa: 430, productBands: BANDS(460, 440, 430, 410, 400), productSource: EN10025_4, family: "EN", source: EN_TABLE_3_1 },
+  { id: "A36", label: "ASTM A36", fyMpa: 36 * KSI_TO_MPA, family: "ASTM", source: AISC_TABLE_2_4("A36 Fy = 36 ksi") },
+  { id: "A992", label: "ASTM A992", fyMpa: 50 * KSI_TO_MPA, family: "ASTM", source: AISC_TABLE_2_4("A992 Fy = 50 ksi") },
   {
     id: "A500-B",
     label: "ASTM A500 Gr. B",
     fyMpa: 46 * KSI_TO_MPA,
     fyRoundMpa: 42 * KSI_TO_MPA,
     family: "ASTM",
-    source: AISC_TABLE_2_4 + ": A500 Gr. B Fy = 46 ksi rectangular, 42 ksi round",
+    source: AISC_TABLE_2_4("A500 Gr. B Fy = 46 ksi rectangular, 42 ksi round"),
   },
   {
     id: "A500-C",
@@ -63,9 +69,9 @@ export const STEEL_GRADES: readonly SteelGrade[] = [
     fyMpa: 50 * KSI_TO_MPA,
     fyRoundMpa: 46 * KSI_TO_MPA,
     family: "ASTM",
-    source: AISC_TABLE_2_4 + ": A500 Gr. C Fy = 50 ksi rectangular, 46 ksi round",
+    source: AISC_TABLE_2_4("A500 Gr. C Fy = 50 ksi rectangular, 46 ksi round"),
   },
-  { id: "A53-B", label: "ASTM A53 Gr. B pipe", fyMpa: 35 * KSI_TO_MPA, family: "ASTM", source: AISC_TABLE_2_4 + ": A53 Gr. B Fy = 35 ksi" },
+  { id: "A53-B", label: "ASTM A53 Gr. B pipe", fyMpa: 35 * KSI_TO_MPA, family: "ASTM", source: AISC_TABLE_2_4("A53 Gr. B Fy = 35 ksi") },
 ];
 
 export function findSteelGrade(id: string): SteelGrade | undefined {
@@ -77,11 +83,11 @@ export interface TimberClass {
   fc0kMpa: number;
   e005Mpa: number;
   timberType: TimberType;
-  source: string;
+  source: SourceRef;
 }
 
-const EN338 = "EN 338:2016 Table 1 (value to be confirmed against EN 338:2016 Table 1)";
-const EN14080 = "EN 14080:2013 Table 5 (value to be confirmed against EN 14080:2013 Table 5)";
+const EN338: SourceRef = { source: "EN 338:2016 Table 1", toConfirm: "value to be confirmed against EN 338:2016 Table 1" };
+const EN14080: SourceRef = { source: "EN 14080:2013 Table 5", toConfirm: "value to be confirmed against EN 14080:2013 Table 5" };
 
 export const TIMBER_CLASSES: readonly TimberClass[] = [
   { id: "C14", fc0kMpa: 16, e005Mpa: 4700, timberType: "solid", source: EN338 },

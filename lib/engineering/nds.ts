@@ -58,7 +58,7 @@ export function runNds(req: CalculationRequest): MethodOutcome {
   if (section.shape === "round") {
     // NDS designs a round column as the square column of the same area.
     d = Math.sqrt(props.areaMm2);
-    steps.push(step("Round column taken as a square of equal area, d = √A", "d", d, "mm", "NDS 2018 §3.7.3 (clause number to be confirmed against NDS 2018)"));
+    steps.push(step("Round column taken as a square of equal area, d = √A", "d", d, "mm", { source: "NDS 2018 §3.7.3", toConfirm: "clause number to be confirmed against NDS 2018" }));
   } else {
     d = props.leastDimensionMm as number;
     steps.push(step("Least cross-section dimension", "d", d, "mm", "NDS 2018 §3.7.1.3"));
@@ -100,11 +100,11 @@ export function runNds(req: CalculationRequest): MethodOutcome {
   steps.push(
     ...eff.steps,
     step(construction ? "Slenderness ratio l_e/d (limit 75 during construction, 50 otherwise)" : "Slenderness ratio l_e/d (limit 50)", "l_e/d", ratio, "", "NDS 2018 §3.7.1.4"),
-    step("Adjusted compression value (given), all factors except C_P", "F_c*", fcStar, "MPa", "User input (NDS 2018 §3.7.1.5)"),
-    step("Adjusted minimum modulus (given)", "E_min'", eMin, "MPa", "User input (NDS 2018 §3.7.1.5)"),
-    step("Critical buckling design value F_cE = 0.822·E_min'/(l_e/d)²", "F_cE", fcE, "MPa", "NDS 2018 §3.7.1.5 (3.7-1)"),
+    step("Adjusted compression value (given), all factors except C_P", "F_c*", fcStar, "MPa", "User input"),
+    step("Adjusted minimum modulus (given)", "E_min'", eMin, "MPa", "User input"),
+    step("Critical buckling design value F_cE = 0.822·E_min'/(l_e/d)²", "F_cE", fcE, "MPa", "NDS 2018 §3.7.1.5 Eq. 3.7-1"),
     step(req.c !== undefined ? "Column parameter c (given)" : `Column parameter c, ${TYPE_WORDS[timberType]}`, "c", c, "", req.c !== undefined ? "User input" : "NDS 2018 §3.7.1.5"),
-    step("C_P = (1 + F_cE/F_c*)/(2c) − √[((1 + F_cE/F_c*)/(2c))² − (F_cE/F_c*)/c]", "C_P", cp, "", "NDS 2018 §3.7.1.5 (3.7-1)"),
+    step("C_P = (1 + F_cE/F_c*)/(2c) − √[((1 + F_cE/F_c*)/(2c))² − (F_cE/F_c*)/c]", "C_P", cp, "", "NDS 2018 §3.7.1.5 Eq. 3.7-1"),
     step("Adjusted compression design value F_c' = C_P·F_c*", "F_c'", fcPrime, "MPa", "NDS 2018 §3.7.1"),
     step("Allowable axial capacity P' = F_c'·A", "P'", capacity, "N", "NDS 2018 §3.6.3"),
   );

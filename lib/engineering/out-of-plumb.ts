@@ -20,7 +20,7 @@ import { fieldError, fmt, step } from "./steps";
 import type { CalculationRequest, FieldError, MethodOutcome, Step } from "./types";
 
 export const PROP_PLUMB_TOLERANCE_DEG = 1.5;
-const PLUMB_SOURCE = "Common practice (UK temporary works guidance: props plumb within 1.5°; to be confirmed against BS 5975 and EN 12812)";
+const PLUMB_SOURCE = { source: "Common practice", note: "UK temporary works guidance: props plumb within 1.5°", toConfirm: "value to be confirmed against BS 5975 and EN 12812" };
 
 function tiltOf(req: CalculationRequest): { ok: true; thetaRad: number; offsetMm: number; steps: Step[] } | { ok: false; errors: FieldError[] } {
   const L = req.lengthMm;
@@ -107,7 +107,7 @@ export function runOutOfPlumb(req: CalculationRequest): MethodOutcome {
     if (horizontal > 0) {
       warnings.push(`The head and base must be held sideways by ${fmt(horizontal / 1000)} kN (H = N·tan θ); friction alone should not be relied on without a designer's check.`);
     }
-    steps.push(step("Axial force / safe working load", "N_ax/SWL", axial / swl, "", "EN 1065 class rating"));
+    steps.push(step("Axial force / safe working load", "N_ax/SWL", axial / swl, "", { source: "EN 1065:1998 Table 2", note: "class rating" }));
     return {
       ok: true,
       value: {
@@ -136,7 +136,7 @@ export function runOutOfPlumb(req: CalculationRequest): MethodOutcome {
   }
   const steps: Step[] = [
     ...geometry,
-    step("Load eccentricity at the end plates", "e", ecc, "mm", req.eccentricityMm !== undefined ? "User input" : "None given"),
+    step("Load eccentricity at the end plates", "e", ecc, "mm", req.eccentricityMm !== undefined ? "User input" : { source: "User input", note: "none given" }),
     step(swayEnds ? "Lever arm e + Δ (an end free to sway carries the offset)" : "Lever arm e (ends held in position)", "e_tot", leverMm, "mm", "Statics"),
     step("First-order moment N_ax·e_tot", "M_1st", m0, "N·mm", "Statics"),
     ...combined.steps,

@@ -59,12 +59,12 @@ export function runPointBrace(req: CalculationRequest): MethodOutcome {
     step("Number of equally spaced intermediate braces", "n", n, "", "User input"),
     step("Unbraced length between braces L_b = L/(n + 1)", "L_b", lb, "mm", "Geometry"),
     step("Required axial strength of the member (given)", "P_r", pr, "N", "User input"),
-    step("Ideal stiffness coefficient 2[1 + cos(π/(n + 1))] (rigid links on springs)", "β_i·L_b/P", coeff, "", "Winter (1960); Timoshenko & Gere §2.8; Yura (2001) AISC Engineering Journal"),
-    step("Ideal brace stiffness β_i = coefficient·P_r/L_b", "β_i", ideal, "N/mm", "Winter (1960); Yura (2001) AISC Engineering Journal"),
-    step("Required brace strength P_br = 0.01·P_r", "P_br", force, "N", "AISC 360-16 Appendix 6 §6.2.2 (A-6-3)"),
+    step("Ideal stiffness coefficient 2[1 + cos(π/(n + 1))] (rigid links on springs)", "β_i·L_b/P", coeff, "", "Winter 1960, Timoshenko & Gere §2.8, Yura 2001 AISC Engineering Journal"),
+    step("Ideal brace stiffness β_i = coefficient·P_r/L_b", "β_i", ideal, "N/mm", "Winter 1960, Yura 2001 AISC Engineering Journal"),
+    step("Required brace strength P_br = 0.01·P_r", "P_br", force, "N", "AISC 360-16 Appendix 6 §6.2.2 Eq. A-6-3"),
     basis === "lrfd"
-      ? step("Required brace stiffness β_br = (1/φ)·8P_r/L_br, φ = 0.75", "β_br", required, "N/mm", "AISC 360-16 Appendix 6 §6.2.2 (A-6-4a)")
-      : step("Required brace stiffness β_br = Ω·8P_r/L_br, Ω = 2.00", "β_br", required, "N/mm", "AISC 360-16 Appendix 6 §6.2.2 (A-6-4b)"),
+      ? step("Required brace stiffness β_br = (1/φ)·8P_r/L_br, φ = 0.75", "β_br", required, "N/mm", "AISC 360-16 Appendix 6 §6.2.2 Eq. A-6-4a")
+      : step("Required brace stiffness β_br = Ω·8P_r/L_br, Ω = 2.00", "β_br", required, "N/mm", "AISC 360-16 Appendix 6 §6.2.2 Eq. A-6-4b"),
   ];
   const loadBasis = `P_r is the member's required axial strength (${basis === "lrfd" ? "LRFD factored" : "ASD"} load)`;
   if (!props) {
@@ -91,7 +91,7 @@ export function runPointBrace(req: CalculationRequest): MethodOutcome {
     );
   }
   steps.push(
-    step(req.eMpa !== undefined ? "Modulus of elasticity (given)" : "Modulus of elasticity, 29 000 ksi", "E", e, "MPa", req.eMpa !== undefined ? "User input" : "AISC 360-16 (E = 200 000 MPa)"),
+    step(req.eMpa !== undefined ? "Modulus of elasticity (given)" : "Modulus of elasticity, 29 000 ksi", "E", e, "MPa", req.eMpa !== undefined ? "User input" : "AISC 360-16 §E3"),
     step("Critical load between braces P_cr = π²·E·I_min/L_b² (K = 1)", "P_cr", pcr, "N", EULER_SOURCE),
   );
   return {

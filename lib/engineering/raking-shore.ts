@@ -46,12 +46,12 @@ export type RakingShoreResult =
   | ({ ok: true; engineVersion: string; steps: Step[]; warnings: string[] } & RakingShoreGeometry)
   | { ok: false; errors: FieldError[] };
 
-const STATICS = "Statics: equilibrium of a pin-ended two-force member";
+const STATICS = { source: "Statics", note: "equilibrium of a pin-ended two-force member" };
 
 export function calculateRakingShore(request: unknown): RakingShoreResult {
   try {
     if (!isPlainObject(request)) {
-      return { ok: false, errors: [{ field: "", message: "The raking-shore request must be an object with thrustN, headHeightMm and angleDeg." }] };
+      return { ok: false, errors: [{ field: "", message: "The raking-shore request must be an object with the horizontal thrust at the head (N), the height of the head above the foot (mm) and the raker angle from horizontal (degrees)." }] };
     }
     const input: Record<string, unknown> = {};
     for (const key of Object.keys(SCHEMA.shape)) input[key] = own(request, key);

@@ -112,7 +112,7 @@ export const N = {
   kmod: numberSchema({ label: "Modification factor kmod", max: 1.1, hint: "EN 1995-1-1 Table 3.1 values lie between 0.2 and 1.1." }),
   gammaM: numberSchema({ label: "Partial factor γM", min: 1, max: 3, hint: "A partial factor below 1 would increase the resistance." }),
   gammaF: numberSchema({ label: "Load factor γF", min: 1, max: 3, hint: "A load factor below 1 would increase the safe working load." }),
-  betaC: numberSchema({ label: "Straightness factor βc", max: 0.5, hint: "EN 1995-1-1 (6.29) uses 0.2 for solid timber and 0.1 for glulam and LVL." }),
+  betaC: numberSchema({ label: "Straightness factor βc", max: 0.5, hint: "EN 1995-1-1 Eq. 6.29 uses 0.2 for solid timber and 0.1 for glulam and LVL." }),
   fcStarMpa: numberSchema({ label: "Adjusted compression design value Fc*", unit: "MPa", max: 200 }),
   eMinMpa: numberSchema({ label: "Adjusted minimum modulus Emin'", unit: "MPa", max: 100_000 }),
   c: numberSchema({ label: "NDS column parameter c", min: 0.5, max: 1, hint: "NDS 2018 §3.7.1 uses 0.8 sawn lumber, 0.85 round poles, 0.9 glulam and SCL." }),

@@ -4,7 +4,7 @@
 // buckling about the weaker axis is the safe assumption.
 
 import { fieldError, fmt, step } from "./steps";
-import type { FieldError, Section, Step } from "./types";
+import type { FieldError, Section, SourceRef, Step } from "./types";
 
 const PI = Math.PI;
 
@@ -52,11 +52,11 @@ export const rhsRoundedSecondMoment = (b: number, h: number, t: number, ro: numb
 export type CornerRule = "cold-formed" | "hot-finished" | "aisc";
 
 /** Outside and inside corner radii by the product standard. */
-export function cornerRadii(t: number, rule: CornerRule): { ro: number; ri: number; source: string } {
-  if (rule === "hot-finished") return { ro: 1.5 * t, ri: t, source: "EN 10210-2 (hot-finished): r_o = 1.5t, r_i = 1.0t for calculating properties" };
-  if (rule === "aisc") return { ro: 2 * t, ri: t, source: "AISC Steel Construction Manual Part 1 (HSS): outside corner radius 2.0·t_des" };
+export function cornerRadii(t: number, rule: CornerRule): { ro: number; ri: number; source: SourceRef } {
+  if (rule === "hot-finished") return { ro: 1.5 * t, ri: t, source: { source: "EN 10210-2", toConfirm: "clause to be confirmed against EN 10210-2", note: "hot-finished: r_o = 1.5t, r_i = 1.0t for calculating properties" } };
+  if (rule === "aisc") return { ro: 2 * t, ri: t, source: { source: "AISC Steel Construction Manual Part 1", note: "HSS outside corner radius 2.0·t_des" } };
   const ro = t <= 6 ? 2 * t : t <= 10 ? 2.5 * t : 3 * t;
-  return { ro, ri: ro - t, source: "EN 10219-2 (cold-formed): r_o = 2t (t ≤ 6 mm), 2.5t (6 < t ≤ 10 mm), 3t (t > 10 mm), r_i = r_o − t" };
+  return { ro, ri: ro - t, source: { source: "EN 10219-2", toConfirm: "clause to be confirmed against EN 10219-2", note: "cold-formed: r_o = 2t (t ≤ 6 mm), 2.5t (6 < t ≤ 10 mm), 3t (t > 10 mm), r_i = r_o − t" } };
 }
 
 export const rectArea = (b: number, h: number): number => b * h;
@@ -79,7 +79,7 @@ export interface SectionProperties {
   steps: Step[];
 }
 
-const SRC_GEOM = "Section geometry (elementary mechanics)";
+const SRC_GEOM = "Section geometry";
 
 export function sectionProperties(section: Section, cornerRule: CornerRule = "cold-formed"): SectionProperties {
   const steps: Step[] = [];
@@ -126,7 +126,7 @@ export function sectionProperties(section: Section, cornerRule: CornerRule = "co
       const ib = rhsRoundedSecondMoment(h, b, t, ro, ri);
       iMinMm4 = Math.min(ih, ib);
       iMaxMm4 = Math.max(ih, ib);
-      const SRC_RHS = "EN 10219-2 / EN 10210-2 formulae for sectional properties (rounded corners)";
+      const SRC_RHS = { source: "EN 10219-2 / EN 10210-2", toConfirm: "clause to be confirmed against EN 10219-2 and EN 10210-2", note: "sectional property formulae with rounded corners" };
       steps.push(step("Area A = 2t(b + h − 2t) − (4 − π)(r_o² − r_i²)", "A", areaMm2, "mm²", SRC_RHS));
       steps.push(step("Second moment, major axis (square-corner value less the corner spandrels)", "I_max", iMaxMm4, "mm⁴", SRC_RHS));
       steps.push(step("Second moment, minor axis", "I_min", iMinMm4, "mm⁴", SRC_RHS));

@@ -16,7 +16,11 @@ export const FORMWORK_ALLOWANCE_KN_M2 = 0.5;
 export const CONSTRUCTION_OUTSIDE_KN_M2 = 0.75;
 /** Upper limit of the working-area load in EN 12812 / BS 5975 (EN 1991-1-6 Table 4.2 uses 1.5). */
 export const WORKING_AREA_MAX_KN_M2 = 1.75;
-export const CONSTRUCTION_SOURCE = "EN 12812:2008 §8.2.2.3 / BS 5975:2019 §17 (falsework loads: working area 10 % of the slab weight, 0.75–1.75 kN/m²; elsewhere 0.75 kN/m²; clause numbers to be confirmed against the standards)";
+export const CONSTRUCTION_SOURCE = {
+  source: "EN 12812:2008 §8.2.2.3 / BS 5975:2019 §17",
+  note: "falsework loads: working area 10 % of the slab weight, 0.75–1.75 kN/m²; elsewhere 0.75 kN/m²",
+  toConfirm: "clause numbers to be confirmed against EN 12812:2008 and BS 5975:2019",
+};
 
 /** EN 1991-1-6 Table 4.2 working-area value: 10 % of the concrete self-weight, not less than 0.75 and not more than 1.5 kN/m². */
 export function workingAreaConstructionLoad(concreteKnM2: number): number {
@@ -81,7 +85,7 @@ const SCHEMA = z.object({
       error: () => "Construction load rule must be working-area or outside-working-area (EN 1991-1-6 Table 4.2).",
     })
     .optional(),
-  concreteAsPermanent: z.boolean({ error: () => "concreteAsPermanent must be true or false." }).optional(),
+  concreteAsPermanent: z.boolean({ error: () => "Whether the wet concrete counts as a permanent load must be true or false." }).optional(),
   gammaG: numberSchema({ label: "Permanent load factor γG", min: 1, max: 2 }).optional(),
   gammaQ: numberSchema({ label: "Variable load factor γQ", min: 1, max: 2 }).optional(),
 });
@@ -95,7 +99,7 @@ export function calculateSlabLoad(request: unknown): SlabLoadResult {
     if (!isPlainObject(request)) {
       return {
         ok: false,
-        errors: [{ field: "", message: "The slab-load request must be an object with slabThicknessMm, spacingXMm and spacingYMm." }],
+        errors: [{ field: "", message: "The slab-load request must be an object with the slab thickness and the prop spacing in each direction (mm)." }],
       };
     }
     const input: Record<string, unknown> = {};
@@ -133,7 +137,7 @@ export function calculateSlabLoad(request: unknown): SlabLoadResult {
         "kN/m³",
         r.concreteDensityKnM3 !== undefined ? "User input" : "EN 1991-1-1 Table A.1 and its notes",
       ),
-      step("Concrete self-weight g_c = γ_c·t", "g_c", b.concreteKnM2, "kN/m²", "EN 1991-1-6 §4.11.2 Table 4.2 (3)"),
+      step("Concrete self-weight g_c = γ_c·t", "g_c", b.concreteKnM2, "kN/m²", "EN 1991-1-6 §4.11.2 Table 4.2"),
       step(r.formworkKnM2 !== undefined ? "Formwork self-weight (given)" : "Formwork self-weight allowance", "g_f", formwork, "kN/m²", r.formworkKnM2 !== undefined ? "User input" : "Common practice"),
       r.constructionKnM2 !== undefined
         ? step("Construction operations load (given)", "q_c", construction, "kN/m²", "User input")
@@ -143,18 +147,18 @@ export function calculateSlabLoad(request: unknown): SlabLoadResult {
       step("Construction operations, working area: 10 % of g_c within 0.75–1.75", "q_c,wa", workingArea, "kN/m²", CONSTRUCTION_SOURCE),
       step("Construction operations, outside the working area", "q_c,out", CONSTRUCTION_OUTSIDE_KN_M2, "kN/m²", CONSTRUCTION_SOURCE),
       step("Total working pressure w = g_c + g_f + q_c", "w", b.totalKnM2, "kN/m²", "Sum"),
-      step("Tributary area per member = s_x·s_y", "A_t", b.tributaryAreaM2, "m²", `Geometry: ${fmt(r.spacingXMm)} × ${fmt(r.spacingYMm)} mm`),
-      step("Working (unfactored) load per member = w·A_t", "N_k", b.loadPerMemberN, "N", "Tributary area"),
+      step("Tributary area per member = s_x·s_y", "A_t", b.tributaryAreaM2, "m²", { source: "Geometry", note: `${fmt(r.spacingXMm)} × ${fmt(r.spacingYMm)} mm` }),
+      step("Working (unfactored) load per member = w·A_t", "N_k", b.loadPerMemberN, "N", { source: "Statics", note: "working pressure × tributary area" }),
       step(
         asPermanent ? "Factor on concrete and formwork, treated as permanent" : "Factor on concrete and formwork, treated as construction (variable) loads",
         "γ",
         gammaConcrete,
         "",
-        asPermanent ? "EN 1990 Table A1.2(B) γG" : "EN 1991-1-6 §4.11 (Qcc, Qcf) with EN 1990 Table A1.2(B) γQ (treatment of fresh concrete as variable to be confirmed against EN 1991-1-6 §4.11)",
+        asPermanent ? "EN 1990 Table A1.2(B)" : { source: "EN 1991-1-6 §4.11 with EN 1990 Table A1.2(B)", note: "Q_cc, Q_cf with γQ", toConfirm: "treatment of fresh concrete as a variable load to be confirmed against EN 1991-1-6 §4.11" },
       ),
       step("Factor on construction operations", "γQ", gammaQ, "", "EN 1990 Table A1.2(B)"),
-      step("Factored pressure", "w_d", b.factoredKnM2, "kN/m²", "EN 1990 (6.10)"),
-      step("Factored load per member", "N_Ed", b.factoredLoadPerMemberN, "N", "EN 1990 (6.10)"),
+      step("Factored pressure", "w_d", b.factoredKnM2, "kN/m²", "EN 1990 Eq. 6.10"),
+      step("Factored load per member", "N_Ed", b.factoredLoadPerMemberN, "N", "EN 1990 Eq. 6.10"),
     ];
     return { ok: true, engineVersion: ENGINE_VERSION, ...b, workingAreaKnM2: workingArea, outsideWorkingAreaKnM2: CONSTRUCTION_OUTSIDE_KN_M2, steps, warnings };
   } catch {

@@ -1,7 +1,13 @@
-import type { FieldError, Step } from "./types";
+import type { FieldError, SourceRef, Step } from "./types";
 
-export function step(label: string, symbol: string, value: number | string, unit: string, source: string): Step {
-  return { label, symbol, value, unit, source };
+/** A line of the working; `source` is the citation only, with any "to be confirmed" or rule-of-thumb words beside it. */
+export function step(label: string, symbol: string, value: number | string, unit: string, source: string | SourceRef): Step {
+  const ref = typeof source === "string" ? { source } : source;
+  return {
+    label, symbol, value, unit, source: ref.source,
+    ...(ref.toConfirm ? { toConfirm: ref.toConfirm } : {}),
+    ...(ref.note ? { note: ref.note } : {}),
+  };
 }
 
 /**

@@ -118,7 +118,7 @@ export function runSupplierTable(req: CalculationRequest): MethodOutcome {
   const swl =
     exact >= 0 ? loads[exact] : rule === "lower-row" ? Math.min(loads[lo], loads[hi]) : interpolateTableInverseSquare(lengths, loads, l);
   const steps: Step[] = [
-    step(`Supplier table with ${rows.length} rows${prepared.sorted ? " (sorted by length)" : ""}, range`, "L_min–L_max", `${fmt(first)}–${fmt(last)}`, "mm", "Supplier's load table (user input)"),
+    step(`Supplier table with ${rows.length} rows${prepared.sorted ? " (sorted by length)" : ""}, range`, "L_min–L_max", `${fmt(first)}–${fmt(last)}`, "mm", { source: "Supplier's load table", note: "user input" }),
     step("Length used", "L", l, "mm", "User input"),
   ];
   if (exact >= 0) {
@@ -127,7 +127,7 @@ export function runSupplierTable(req: CalculationRequest): MethodOutcome {
     steps.push(step("Row below", "L₁, P₁", `${fmt(lengths[lo])} mm, ${fmt(loads[lo])} N`, "", "Supplier's load table"));
     steps.push(step("Row above", "L₂, P₂", `${fmt(lengths[hi])} mm, ${fmt(loads[hi])} N`, "", "Supplier's load table"));
     if (rule === "lower-row") {
-      steps.push(step("Between rows the lower of the two safe loads is taken (no interpolation)", "SWL", swl, "N", "Supplier's load table, lower row"));
+      steps.push(step("Between rows the lower of the two safe loads is taken (no interpolation)", "SWL", swl, "N", { source: "Supplier's load table", note: "lower row" }));
     } else {
       steps.push(
         step(
@@ -135,7 +135,7 @@ export function runSupplierTable(req: CalculationRequest): MethodOutcome {
           "SWL",
           swl,
           "N",
-          "Interpolation on the Euler 1/L² basis (Timoshenko & Gere §2.2)",
+          { source: "Timoshenko & Gere §2.2", note: "interpolation on the Euler 1/L² basis" },
         ),
       );
     }

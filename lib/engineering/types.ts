@@ -36,7 +36,19 @@ export interface Step {
   symbol: string;
   value: number | string;
   unit: string;
+  /** Where the value comes from: the standard and clause only ("EN 1065:1998 Table 2"), or "User input", "Geometry"… */
   source: string;
+  /** Present when the value awaits confirmation: what a checker confirms it against ("value to be confirmed against EN 1065 Table 2"). */
+  toConfirm?: string;
+  /** Words beside the source: a rule of thumb ("common practice"), the range a value was taken from, a simplification. */
+  note?: string;
+}
+
+/** A step's origin: the citation and, where they apply, what it awaits confirmation against and a note. */
+export interface SourceRef {
+  source: string;
+  toConfirm?: string;
+  note?: string;
 }
 
 export interface FieldError {

@@ -276,7 +276,7 @@ export async function createMemberOnce(args: { user: SessionUser; site: SiteForC
 function patchErrors(issues: { code?: string; keys?: string[]; path: PropertyKey[]; message: string }[]): FieldErrors {
   const out: FieldErrors = {};
   for (const i of issues) {
-    if (i.code === "unrecognized_keys" && i.keys) for (const k of i.keys) out[k] = `${k} cannot be changed here (it is not a field of a member, or it is set by the system).`;
+    if (i.code === "unrecognized_keys" && i.keys) for (const k of i.keys) out[k] = "This value cannot be changed here: it is not a field of a member, or the system sets it.";
   }
   return { ...fieldErrorsFromZod(issues.filter((i) => i.code !== "unrecognized_keys")), ...out };
 }

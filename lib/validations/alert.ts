@@ -6,10 +6,10 @@ export const alertPreferencesSchema = z.object({
   preferences: z
     .array(
       z.object({
-        kind: z.enum(ALERT_KINDS, { error: () => `kind must be one of: ${ALERT_KINDS.join(", ")}.` }),
-        delivery: z.enum(DELIVERIES, { error: () => `delivery must be one of: ${DELIVERIES.join(", ")}.` }),
+        kind: z.enum(ALERT_KINDS, { error: () => `The alert kind must be one of: ${ALERT_KINDS.join(", ")}.` }),
+        delivery: z.enum(DELIVERIES, { error: () => `The delivery must be one of: ${DELIVERIES.join(", ")}.` }),
       }),
-      { error: () => "preferences must be a list of { kind, delivery }." },
+      { error: () => "The preferences must be a list, each an alert kind with its delivery." },
     )
     .min(1, "Give at least one preference.")
     .max(ALERT_KINDS.length, "One preference per kind."),

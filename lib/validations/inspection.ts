@@ -30,10 +30,10 @@ export const inspectionItemSchema = z.object({
 export const inspectionSchema = z
   .object({
     result: resultSchema("The overall result"),
-    items: z.array(inspectionItemSchema, { error: () => "items must be a list of checklist answers." }).max(30, "At most 30 checklist items.").optional(),
+    items: z.array(inspectionItemSchema, { error: () => "The checklist must be a list of answers, one per check." }).max(30, "At most 30 checklist items.").optional(),
     notes: z.string({ error: () => "Notes must be text." }).trim().max(2000, "Notes have at most 2,000 characters.").optional(),
     photoIds: z
-      .array(z.string().uuid("Each photo id must be the id of an uploaded photo."), { error: () => "photoIds must be a list of photo ids." })
+      .array(z.string().uuid("Each photo id must be the id of an uploaded photo."), { error: () => "The photos must be a list of photo ids, as returned by the upload." })
       .max(MAX_INSPECTION_PHOTOS, `At most ${MAX_INSPECTION_PHOTOS} photos per inspection.`)
       .optional(),
     clientId: clientIdSchema.optional(),
@@ -79,12 +79,12 @@ export const bulkInspectionSchema = z
   .object({
     memberIds: z
       .array(z.string({ error: () => "Each member id must be text." }).uuid("Each member id must be the id of a member in the register."), {
-        error: () => "memberIds must be a list of member ids.",
+        error: () => "The members must be a list of member ids.",
       })
       .min(1, "Choose at least one member.")
       .max(MAX_BULK_INSPECTIONS, `At most ${MAX_BULK_INSPECTIONS} members at once; choose fewer.`),
     result: z.literal("pass", {
-      error: () => 'result must be "pass": only satisfactory inspections are recorded in bulk; record a failure on the member\'s own checklist, with what is wrong.',
+      error: () => 'The result must be "pass": only satisfactory inspections are recorded in bulk; record a failure on the member\'s own checklist, with what is wrong.',
     }),
     notes: z.string({ error: () => "Notes must be text." }).trim().max(2000, "Notes have at most 2,000 characters.").optional(),
     clientId: clientIdSchema.optional(),

@@ -13,14 +13,14 @@ export const TAG_PATTERN = /^[A-Za-z0-9][A-Za-z0-9\-_./ ]*$/;
 
 /** A UUID the phone makes for a create, so a retried request returns the first record instead of a second. */
 export const clientIdSchema = z
-  .string({ error: () => "clientId must be a UUID made on the device for this record." })
-  .uuid("clientId must be a UUID made on the device for this record (e.g. crypto.randomUUID()).");
+  .string({ error: () => "The device's own id for this record must be a UUID made on the device." })
+  .uuid("The device's own id for this record must be a UUID made on the device (a random version 4 UUID).");
 
 const uuid = (what: string) => z.string({ error: () => `Choose ${what}.` }).uuid(`Choose ${what} from the list.`);
 
 const positive = (label: string, unit: string, max: number) =>
   z
-    .number({ error: (i) => (i.input === undefined || i.input === null ? `Enter the ${label}.` : `The ${label} must be a number in ${unit}.`) })
+    .number({ error: (i) => (i.input === undefined || i.input === null ? `Enter the ${label}.` : `The ${label} must be a number (${unit}).`) })
     .refine(Number.isFinite, `The ${label} must be a finite number.`)
     .refine((v) => v > 0, `The ${label} must be more than 0 ${unit}.`)
     .refine((v) => v <= max, `The ${label} must be at most ${max.toLocaleString("en-GB")} ${unit}; check the unit.`);
@@ -97,11 +97,11 @@ export const memberCreateSchema = z
   .object({
     ...base,
     photoIds: z
-      .array(z.string().uuid("Each photo id must be the id returned by the upload."), { error: () => "photoIds must be a list of photo ids." })
+      .array(z.string().uuid("Each photo id must be the id returned by the upload."), { error: () => "The photos must be a list of photo ids, as returned by the upload." })
       .max(MAX_PHOTOS_PER_MEMBER, `At most ${MAX_PHOTOS_PER_MEMBER} photos per member.`)
       .optional(),
     /** Ask for the member to be submitted at once (allowed only when its check passes). */
-    submit: z.boolean({ error: () => "submit must be true or false." }).optional(),
+    submit: z.boolean({ error: () => "Whether to submit the member at once must be true or false." }).optional(),
     clientId: clientIdSchema.optional(),
     /** Where it stands on its zone's plan (fractions 0–1 of the image), or null. */
     planPosition: planPositionSchema.optional(),
@@ -132,9 +132,9 @@ export const memberPatchSchema = z
     status: z.enum(memberStatus.enumValues, { error: () => `Status must be one of: ${EDITABLE_STATUSES.join(", ")}.` }),
     /** The member's `version` the edit was made against; a newer one on the server is a 409 conflict. */
     baseVersion: z
-      .number({ error: () => "baseVersion must be the member's version number the edit was based on." })
-      .int("baseVersion must be a whole number.")
-      .positive("baseVersion must be 1 or more."),
+      .number({ error: () => "Give the version number of the member record the edit was based on." })
+      .int("The version the edit was based on must be a whole number.")
+      .positive("The version the edit was based on must be 1 or more."),
   })
   .partial()
   .strict();

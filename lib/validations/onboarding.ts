@@ -54,7 +54,7 @@ export type SiteCreateInput = z.input<typeof siteCreateSchema>;
 export const sitePatchSchema = z
   .object({
     ...Object.fromEntries(Object.entries(siteFields).map(([k, v]) => [k, v.optional()])),
-    archived: z.boolean({ error: "archived is true or false." }).optional(),
+    archived: z.boolean({ error: "Archived must be true or false." }).optional(),
   } as { [K in keyof typeof siteFields]: z.ZodOptional<(typeof siteFields)[K]> } & { archived: z.ZodOptional<z.ZodBoolean> })
   .refine((v) => Object.values(v).some((x) => x !== undefined), { message: "Send at least one field to change.", path: ["_"] });
 export type SitePatchInput = z.infer<typeof sitePatchSchema>;

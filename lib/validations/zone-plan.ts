@@ -38,7 +38,7 @@ export const planScaleSchema = z
         .refine((v) => v > 0, "The distance between the two points must be more than 0 mm.")
         .refine((v) => v <= 1_000_000, "The distance must be at most 1,000,000 mm (1 km); check the unit."),
     },
-    { error: () => "The scale is two points { x1, y1, x2, y2 } (fractions 0–1) and distanceMm." },
+    { error: () => "The scale is two points on the plan (x1, y1 and x2, y2, as fractions 0–1 of the image) and the real distance between them in mm." },
   )
   .strict()
   .refine((s) => s.x1 !== s.x2 || s.y1 !== s.y2, { path: ["x2"], message: "The two scale points are the same point; pick two points apart." });
@@ -51,7 +51,7 @@ export type ZonePlanComplete = z.output<typeof zonePlanCompleteSchema>;
 
 /** Where a member stands on its zone's plan, or null to take it off the plan. */
 export const planPositionSchema = z
-  .object({ x: fraction("x"), y: fraction("y") }, { error: () => "planPosition must be { x, y } with fractions 0–1 of the plan, or null." })
+  .object({ x: fraction("x"), y: fraction("y") }, { error: () => "The place on the plan must be x and y, fractions 0–1 across and down the plan, or empty (null) for none." })
   .strict()
   .nullable();
 export type PlanPosition = z.output<typeof planPositionSchema>;
@@ -59,12 +59,12 @@ export type PlanPosition = z.output<typeof planPositionSchema>;
 export const PLAN_CHECK_FILTERS = ["pass", "fail", "none"] as const;
 
 export const zonePlanQuerySchema = z.object({
-  status: z.enum(memberStatus.enumValues, { error: () => `status must be one of: ${memberStatus.enumValues.join(", ")}.` }).optional(),
-  check: z.enum(PLAN_CHECK_FILTERS, { error: () => "check must be pass, fail or none (no completed check)." }).optional(),
+  status: z.enum(memberStatus.enumValues, { error: () => `The status filter must be one of: ${memberStatus.enumValues.join(", ")}.` }).optional(),
+  check: z.enum(PLAN_CHECK_FILTERS, { error: () => "The check filter must be pass, fail or none (no completed check)." }).optional(),
   q: z.string().trim().max(40, "A tag search has at most 40 characters.").optional(),
 });
 export type ZonePlanQuery = z.output<typeof zonePlanQuerySchema>;
 
 export const zonePlanPdfQuerySchema = zonePlanQuerySchema.extend({
-  paper: z.enum(["a3", "a4"], { error: () => "paper must be a3 or a4." }).default("a3"),
+  paper: z.enum(["a3", "a4"], { error: () => "The paper size must be a3 or a4." }).default("a3"),
 });

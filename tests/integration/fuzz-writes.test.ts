@@ -11,6 +11,7 @@ import { hashPassword } from "@/lib/auth/password";
 import { declaredRoutes } from "../support/routes";
 import { DEMO_PASSWORD, signInAs, type Client } from "../support/http";
 import { makeMember, requestLoad, site, uniqueTag } from "../support/fixtures";
+import { ALL_METHOD_IDS } from "@/lib/engineering/types";
 
 const ROLES = ["engineer", "coordinator", "supervisor", "designer", "manager", "admin"] as const;
 const WRITE = ["POST", "PUT", "PATCH", "DELETE"] as const;
@@ -71,6 +72,21 @@ function bodyFor(route: WriteRoute): fc.Arbitrary<{ text: string; type: string }
     .map((v) => ({ text: JSON.stringify(v), type: "application/json" }));
   const notJson = fc.constantFrom("{", "not json", "{'a':1}", "[1,", "\u0000").map((text) => ({ text, type: "application/json" }));
   return fc.oneof({ arbitrary: json, weight: 5 }, { arbitrary: notJson, weight: 1 });
+}
+
+/** A camelCase word is a request key (eMpa, timberType, slabThicknessMm), not words; kN, kPa and kNm are units. */
+const CAMEL = /\b[a-z][a-z0-9]*[A-Z][A-Za-z0-9]*\b/g;
+const UNIT_WORDS = new Set(["kN", "kPa", "kNm"]);
+function codeWordsIn(answer: string): string[] {
+  let parsed: { error?: { message?: string; fields?: Record<string, string> } };
+  try {
+    parsed = JSON.parse(answer) as typeof parsed;
+  } catch {
+    return [];
+  }
+  const messages = [parsed.error?.message ?? "", ...Object.values(parsed.error?.fields ?? {})];
+  // What the sender typed is echoed in quotes ('got the text "aB"'): that is their text, not our field name.
+  return messages.filter((m) => (m.replace(/"[^"]*"|“[^”]*”/g, "").match(CAMEL) ?? []).some((w) => !UNIT_WORDS.has(w)));
 }
 
 let everyRole: Client;
@@ -136,6 +152,8 @@ describe("malformed bodies on every write route", () => {
           if (res.status >= 500 || res.status < 400) throw new Error(`${route.method} ${route.template} answered ${res.status} to ${text.slice(0, 200)}: ${answer.slice(0, 300)}`);
           const parsed = JSON.parse(answer) as { error?: { code?: string; message?: string } };
           if (!parsed.error?.message) throw new Error(`${route.method} ${route.template} gave no reason for ${res.status}: ${answer.slice(0, 200)}`);
+          const coded = codeWordsIn(answer);
+          if (coded.length) throw new Error(`${route.method} ${route.template} names a code field to ${text.slice(0, 200)}: ${coded.join(" | ")}`);
         }),
         // No shrinking: the first failure is reported as it was sent (shrinking would replay hundreds of requests).
         { numRuns: perRoute, endOnFailure: true },
@@ -144,4 +162,74 @@ describe("malformed bodies on every write route", () => {
     expect(sent).toBeGreaterThanOrEqual(TOTAL_RUNS);
     expect(await counts()).toEqual(before);
   }, 600_000);
+});
+
+// Issue #16: a refusal reaches a person, so it is a sentence in words ("Slab thickness", "the photos"),
+// never a request key. Every write route gets each key a route reads, all holding the same wrong kind of
+// value, so each schema answers for all its fields at once; then every calculation method gets the same.
+describe("no refusal names a code field", () => {
+  const KEYS = [
+    "tag", "memberTypeId", "extensionMm", "endConditions", "loadSource", "loadN", "spacingXMm", "spacingYMm", "zoneId", "schemeId", "notes", "photoIds",
+    "submit", "status", "contentType", "size", "kind", "scope", "memberIds", "evidence", "validUntil", "validFrom", "conditions", "reason", "result", "items",
+    "name", "code", "email", "roles", "password", "units", "basis", "reference", "category", "userId", "zoneIds", "preferences", "planPosition", "key",
+    "method", "clientId", "baseVersion", "scale", "archived", "params", "title", "designerName", "designLoadN", "slabThicknessMm", "concreteDensityKnM3",
+    "formworkKnM2", "constructionKnM2", "base", "plumbDeg", "plumbOffsetMm", "plumbOverMm", "timezone", "unitSystem", "startCell", "checkerName",
+    "checkCategory", "documentDate", "drawingNumber", "revision", "signedImageConfirmed", "currentPassword", "newPassword", "token",
+  ];
+  const WRONG: unknown[] = ["x", -1, 1e12, true, [1], { a: 1 }, null, ""];
+  const bodies = WRONG.map((v) => Object.fromEntries(KEYS.map((k) => [k, v])));
+  // The library's kinds each have their own params: one body per kind with every param wrong.
+  for (const kind of ["en1065-prop", "supplier-table", "trench-strut", "steel-section", "timber-section"]) {
+    bodies.push({ kind, name: "x", params: { propClass: 1, table: [{ lengthMm: "x", safeLoadN: -1 }], section: { shape: "chs", dMm: "x", tMm: -1 }, grade: 1, formed: 1, strengthClass: 1, timberType: 1 }, minExtensionMm: "x", maxExtensionMm: -1 });
+  }
+
+  it("every write route refuses each wrongly typed field in words", async () => {
+    const routes = (await discover()).filter((r) => r.meta.body !== "raw");
+    const offenders: string[] = [];
+    let refusals = 0;
+    for (const route of routes) {
+      const url = route.template.replace(/\[(\w+)\]/g, (_, name: string) => ids[name] ?? "00000000-0000-4000-8000-000000000000");
+      for (const body of bodies) {
+        if (accepts(route.meta.parser, body)) continue; // never send a body the route would take
+        const res = await everyRole.fetch(url, { method: route.method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+        const answer = await res.text();
+        expect(res.status, `${route.method} ${route.template}`).toBeGreaterThanOrEqual(400);
+        if (res.status === 422) refusals++;
+        offenders.push(...codeWordsIn(answer).map((m) => `${route.method} ${route.template}: ${m}`));
+      }
+    }
+    expect(refusals).toBeGreaterThan(100);
+    expect([...new Set(offenders)]).toEqual([]);
+  }, 300_000);
+
+  it("every calculation method refuses malformed requests in words", async () => {
+    const FIELDS = [
+      "lengthMm", "k", "ends", "section", "eMpa", "fyMpa", "steelGrade", "formed", "curve", "gammaM1", "fc0kMpa", "e005Mpa", "kmod", "serviceClass",
+      "loadDuration", "gammaM", "betaC", "strengthClass", "timberType", "fcStarMpa", "eMinMpa", "c", "propClass", "maxExtensionMm", "minExtensionMm", "gammaF",
+      "table", "braces", "designBasis", "loadN", "hssWeld", "fyFrom", "duringConstruction", "supplierInterpolation", "outOfPlumbDeg", "outOfPlumbMm",
+      "eccentricityMm", "plumbCode", "basePlateBMm", "basePlateLMm", "solePlateBMm", "solePlateLMm", "solePlateTMm", "allowablePressureKPa", "soil",
+      "slabDepthMm", "slabEffectiveDepthMm", "fckMpa", "rhoL", "punchingCode", "shoredLevels", "slabSelfWeightKPa", "formworkKPa", "constructionKPa", "cycles",
+      "angleDeg", "selfWeightNPerM",
+    ];
+    const offenders: string[] = [];
+    let refusals = 0;
+    const send = async (body: unknown) => {
+      const res = await everyRole.fetch("/api/v1/calculations", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+      const answer = await res.text();
+      if (res.status === 422) refusals++;
+      expect(res.status).toBeLessThan(500);
+      offenders.push(...codeWordsIn(answer).map((m) => `${JSON.stringify(body).slice(0, 80)}: ${m}`));
+    };
+    await send(null);
+    await send({});
+    await send({ method: "guesswork" });
+    for (const method of ALL_METHOD_IDS) {
+      await send({ method });
+      for (const v of [...WRONG, 0, Number.MAX_SAFE_INTEGER]) await send({ method, ...Object.fromEntries(FIELDS.map((f) => [f, v])) });
+      // Right kinds, wrong together: sections and tables with bad parts, extensions out of range.
+      await send({ method, lengthMm: 5000, section: { shape: "chs", dMm: 50, tMm: 30 }, table: [{ lengthMm: 1000 }, { safeLoadN: 5 }], propClass: "D", maxExtensionMm: 3000, minExtensionMm: 4000, loadN: 1000, basePlateBMm: 100, basePlateLMm: 100, slabDepthMm: 200, slabEffectiveDepthMm: 250, fckMpa: 30, outOfPlumbMm: 6000, angleDeg: 60 });
+    }
+    expect(refusals).toBeGreaterThan(ALL_METHOD_IDS.length * 5);
+    expect([...new Set(offenders)]).toEqual([]);
+  }, 300_000);
 });

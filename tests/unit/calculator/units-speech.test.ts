@@ -7,6 +7,9 @@ import { formToRequest } from "@/lib/calculator/form-request";
 import { calculate } from "@/lib/engineering";
 import { MPA_PER_KSI, N_PER_LBF } from "@/lib/units";
 import { CALCULATOR_DEFAULTS, type CalculatorForm } from "@/lib/validations/calculator";
+import { memberCreateSchema } from "@/lib/validations/member";
+import { memberTypeSchema } from "@/lib/validations/member-type";
+import { schemeSchema } from "@/lib/validations/scheme";
 
 const form = (over: Partial<CalculatorForm>): CalculatorForm => ({ ...CALCULATOR_DEFAULTS, ...over });
 
@@ -111,5 +114,45 @@ describe("speakUnits: engine sentences in the person's units", () => {
   it("leaves unitless numbers and SI sentences on an SI form alone", () => {
     const s = "Partial factor γM1 must be at least 1 (got 0.9). EN 1993-1-1 §6.3.1 and 3350 mm.";
     expect(speakUnits(s, "si")).toBe(s);
+  });
+});
+
+// The member, library and scheme forms type kN (kip on a US site) over an API in N: the schema's
+// sentence is spoken through speakUnits before it reaches the field. 1 kN = 1000 N (SI); 1 in = 25.4 mm
+// exactly and 1 kip = 4.4482216152605 kN (NIST SP 811 Appendix B).
+describe("forms that type kN hear kN from the N schemas (issue #16)", () => {
+  const firstMessage = (r: { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } }, path: string) =>
+    r.error?.issues.find((i) => i.path.map(String).join(".") === path)?.message ?? "";
+  const member = { tag: "P-1", memberTypeId: "00000000-0000-4000-8000-000000000001", extensionMm: 2500, loadN: 60_000_000 };
+
+  it("the member form: a working load over the limit says kN on an SI site and kip on a US one", () => {
+    const msg = firstMessage(memberCreateSchema.safeParse(member), "loadN");
+    expect(msg).toMatch(/50,000,000 N/); // the API speaks N …
+    expect(speakUnits(msg, "si")).toBe("The working load must be at most 50000 kN; check the unit.");
+    // 50 000 kN / 4.4482216152605 kN per kip = 11 240 kip
+    expect(speakUnits(msg, "us")).toBe("The working load must be at most 11240 kip; check the unit.");
+  });
+
+  it("the member form on a US site: an extension over the limit says inches", () => {
+    const msg = firstMessage(memberCreateSchema.safeParse({ ...member, loadN: 1000, extensionMm: 40_000 }), "extensionMm");
+    // 30 000 mm / 25.4 = 1181 in
+    expect(speakUnits(msg, "us")).toBe("The measured extension must be at most 1181 in; check the unit.");
+  });
+
+  it("the library form: a safe load row over the limit, and one that is not a number, say kN", () => {
+    const base = { kind: "supplier-table", name: "Trench strut 2 m", params: { table: [{ lengthMm: 1000, safeLoadN: 60_000_000 }, { lengthMm: 2000, safeLoadN: Number.NaN }] } };
+    const r = memberTypeSchema.safeParse(base);
+    expect(speakUnits(firstMessage(r, "params.table.0.safeLoadN"), "si")).toBe("The safe working load must be at most 50000 kN; check the unit.");
+    expect(speakUnits(firstMessage(r, "params.table.1.safeLoadN"), "si")).toBe("Enter the safe working load.");
+    const negative = memberTypeSchema.safeParse({ ...base, params: { table: [{ lengthMm: 1000, safeLoadN: -5 }, { lengthMm: 2000, safeLoadN: 1 }] } });
+    expect(speakUnits(firstMessage(negative, "params.table.0.safeLoadN"), "si")).toBe("The safe working load must be more than 0 kN.");
+  });
+
+  it("the scheme form: a design load that is not a number, or too large, says kN", () => {
+    const base = { reference: "TW-1", title: "Slab", designerName: "A. Designer", category: 1 };
+    expect(speakUnits(firstMessage(schemeSchema.safeParse({ ...base, designLoadN: Number.NaN }), "designLoadN"), "si")).toBe("The design load per member must be a number (kN).");
+    expect(speakUnits(firstMessage(schemeSchema.safeParse({ ...base, designLoadN: 6e7 }), "designLoadN"), "si")).toBe(
+      "The design load per member must be at most 50000 kN; check the unit.",
+    );
   });
 });

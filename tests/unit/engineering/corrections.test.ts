@@ -124,6 +124,6 @@ describe("values awaiting confirmation say so in words a checker understands", (
       expect(text).not.toMatch(/from memory/i);
     }
     const en1065 = success(calculate(reqs[0]));
-    expect(en1065.steps.map((s) => s.source).join(" ")).toContain("to be confirmed against EN 1065 Table 2");
+    expect(en1065.steps.map((s) => s.toConfirm ?? "").join(" ")).toContain("to be confirmed against EN 1065 Table 2");
   });
 });

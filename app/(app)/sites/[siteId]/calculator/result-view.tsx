@@ -1,4 +1,5 @@
 import { Icon } from "@/components/icons";
+import { StepSource } from "@/components/step-source";
 import type { CalculationSuccess } from "@/lib/engineering";
 import { formatUtilisation } from "@/lib/client/format";
 import { fromN } from "@/lib/units";
@@ -161,7 +162,7 @@ export function ResultView({ result, units }: { result: CalculationSuccess; unit
                 <td className="p-2 font-mono">{s.symbol}</td>
                 <td className="tabular p-2 text-right">{fmtValue(shown.value)}</td>
                 <td className="p-2">{shown.unit}</td>
-                <td className="p-2 text-ink-soft">{s.source}</td>
+                <td className="p-2 text-ink-soft"><StepSource step={s} /></td>
               </tr>
               );
             })}

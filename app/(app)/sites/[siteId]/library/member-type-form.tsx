@@ -7,6 +7,7 @@ import { useFieldArray, useForm, type Resolver } from "react-hook-form";
 import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { Icon } from "@/components/icons";
 import { useServerErrors } from "@/components/use-server-errors";
+import { speakUnits } from "@/lib/calculator/units-speech";
 import { apiJson } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
@@ -79,6 +80,9 @@ function toPayload(v: Values): Record<string, unknown> {
   }
 }
 
+/** The schema speaks the API's N; this form types safe loads in kN. */
+const speakSi = (m: string) => speakUnits(m, "si");
+
 /** API error path → form field. */
 function fieldFor(path: string): string {
   const m = /^params\.table\.(\d+)\.(lengthMm|safeLoadN)$/.exec(path);
@@ -112,12 +116,12 @@ export function MemberTypeForm({ siteId, existing, usedBy = 0 }: { siteId: strin
     const all: Record<string, string> = {};
     for (const i of r.error.issues) {
       const k = fieldFor(i.path.map(String).join("."));
-      if (!(k in all)) all[k] = i.message;
+      if (!(k in all)) all[k] = speakSi(i.message);
     }
     return { values: {}, errors: errorsOf(all) as never };
   }, [existing?.kind]);
   const { register, control, handleSubmit, watch, setError, formState, setValue } = useForm<Values>({ defaultValues: initialValues(existing), resolver });
-  const placeErrors = useServerErrors(setError, { fieldOf: fieldFor });
+  const placeErrors = useServerErrors(setError, { fieldOf: fieldFor, speak: speakSi });
   const { fields, append, remove, replace } = useFieldArray({ control, name: "rows" });
   const [csv, setCsv] = useState("");
   const [csvErrors, setCsvErrors] = useState<string[]>([]);

@@ -5,6 +5,7 @@ import { useCallback, useState } from "react";
 import { useForm, type Resolver } from "react-hook-form";
 import { Icon } from "@/components/icons";
 import { useServerErrors } from "@/components/use-server-errors";
+import { speakUnits } from "@/lib/calculator/units-speech";
 import { apiJson } from "@/lib/client/api";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
@@ -26,6 +27,8 @@ const FIELD: Record<string, keyof Values> = {
   concreteDensityKnM3: "concreteDensity", formworkKnM2: "formwork", constructionKnM2: "construction",
 };
 const schemeFieldOf = (k: string): string => FIELD[k] ?? k;
+/** The schema speaks the API's N; this form types the design load in kN. */
+const speakSi = (m: string) => speakUnits(m, "si");
 
 function toPayload(v: Values) {
   return {
@@ -44,7 +47,7 @@ export function SchemeForm({ siteId, existing, defaultDesigner = "" }: { siteId:
     const errors: Record<string, { type: string; message: string }> = {};
     for (const i of r.error.issues) {
       const k = FIELD[String(i.path[0])] ?? String(i.path[0]);
-      errors[k] ??= { type: "validate", message: i.message };
+      errors[k] ??= { type: "validate", message: speakSi(i.message) };
     }
     return { values: {}, errors };
   }, []);
@@ -57,7 +60,7 @@ export function SchemeForm({ siteId, existing, defaultDesigner = "" }: { siteId:
       validFrom: existing?.validFrom?.slice(0, 10) ?? "", validUntil: existing?.validUntil?.slice(0, 10) ?? "",
     },
   });
-  const placeErrors = useServerErrors(setError, { fieldOf: schemeFieldOf });
+  const placeErrors = useServerErrors(setError, { fieldOf: schemeFieldOf, speak: speakSi });
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const err = (k: keyof Values) => formState.errors[k]?.message;
   const input = (id: keyof Values, label: string, hint?: string, type = "text", mode: "decimal" | "text" = "decimal") => (

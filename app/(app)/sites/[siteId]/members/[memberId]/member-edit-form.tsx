@@ -3,7 +3,7 @@
 // With no signal the edit waits on the phone with the version it was made against; if the member
 // changes on the server meanwhile, the header's list shows both and the person chooses.
 import { useRouter } from "next/navigation";
-import { useEffect, useRef, useState } from "react";
+import { useCallback, useEffect, useRef, useState } from "react";
 import { useForm } from "react-hook-form";
 import { Icon } from "@/components/icons";
 import { PlanPlacePicker, type PlanPlace } from "@/components/plan/plan-place-picker";
@@ -14,6 +14,7 @@ import { MemberFields, type SchemeOption, type TypeOption, type ZoneOption } fro
 import { EMPTY_MEMBER_FORM, FIELD_OF, forceText, lengthText, toMemberInput, type MemberFormValues, type UnitSystem } from "@/components/register/member-form-values";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, inputClass } from "@/components/ui/field";
+import { speakUnits } from "@/lib/calculator/units-speech";
 import { MEMBER_STATUS_LABELS } from "@/lib/labels";
 
 const editFieldOf = (k: string): string => FIELD_OF[k] ?? k;
@@ -54,7 +55,9 @@ export function MemberEditForm({
     status: member.status,
   };
   const { register, handleSubmit, watch, setError, formState } = useForm<EditValues>({ defaultValues: initial });
-  const placeErrors = useServerErrors(setError, { fieldOf: editFieldOf });
+  // The API speaks N and mm; this form types kN (or kip and feet-inches).
+  const speak = useCallback((m: string) => speakUnits(m, unitSystem), [unitSystem]);
+  const placeErrors = useServerErrors(setError, { fieldOf: editFieldOf, speak });
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [result, setResult] = useState<{ check: CheckSummary; loadN: number } | null>(null);
   const statusError = formState.errors.status?.message;

@@ -3,6 +3,7 @@ import { notFound } from "next/navigation";
 import { CautionNotice } from "@/components/caution-notice";
 import { Icon } from "@/components/icons";
 import { CapacityChart } from "@/components/capacity-chart";
+import { StepSource } from "@/components/step-source";
 import { BASIS_LABELS, CheckResult, PassBadge } from "@/components/register/check-result";
 import { formatUtilisation } from "@/lib/client/format";
 import type { MemberBase } from "@/db/schema";
@@ -55,7 +56,7 @@ function baseText(b: MemberBase | null, len: (mm: number) => string) {
       : b.allowablePressureKPa != null
         ? `on ground at ${b.allowablePressureKPa} kPa allowable`
         : b.soil
-          ? `on ${SOILS[b.soil].label.toLowerCase()} (${SOILS[b.soil].kPa} kPa allowable: ${SOILS[b.soil].source})`
+          ? `on ${SOILS[b.soil].label.toLowerCase()} (${SOILS[b.soil].kPa} kPa allowable: ${SOILS[b.soil].source}${SOILS[b.soil].toConfirm ? `, ${SOILS[b.soil].toConfirm}` : ""})`
           : "on ground of unknown bearing";
   return `${plate}${sole}, ${below}`;
 }
@@ -81,7 +82,7 @@ function StepsTable({ caption, steps }: { caption: string; steps: Step[] }) {
             <td className="p-1 font-mono">{s.symbol}</td>
             <td className="tabular p-1 text-right">{fmtStep(s)}</td>
             <td className="p-1">{s.unit}</td>
-            <td className="p-1 text-ink-soft">{s.source}</td>
+            <td className="p-1 text-ink-soft"><StepSource step={s} /></td>
           </tr>
         ))}
       </tbody>

@@ -16,6 +16,7 @@ import { MemberFields, type SchemeOption, type TypeOption, type ZoneOption } fro
 import { EMPTY_MEMBER_FORM, FIELD_OF, toMemberInput, type MemberFormValues, type UnitSystem } from "@/components/register/member-form-values";
 import { PhotoUploader, type QueuedFile, type UploadedPhoto } from "@/components/register/photo-uploader";
 import { Button, buttonClass } from "@/components/ui/button";
+import { speakUnits } from "@/lib/calculator/units-speech";
 import { memberCreateSchema } from "@/lib/validations/member";
 
 type Saved = { member: { id: string; tag: string; loadN: number; status: string }; check: CheckSummary };
@@ -42,7 +43,8 @@ export function LogMemberForm({
       if (!parsed.success) {
         for (const i of parsed.error.issues) {
           const key = FIELD_OF[String(i.path[0])] ?? String(i.path[0] ?? "tag");
-          if (!(key in all)) all[key] = i.message;
+          // The schema speaks the API's N and mm; the person typed kN (or kip and feet-inches).
+          if (!(key in all)) all[key] = speakUnits(i.message, unitSystem);
         }
       }
       if (Object.keys(all).length === 0) return { values, errors: {} };
@@ -87,7 +89,8 @@ export function LogMemberForm({
     asDraft,
   );
   const { ready: loaded, save: storeDraft } = draft;
-  const placeErrors = useServerErrors(setError, { fieldOf: formFieldOf, isField: isFormField });
+  const speak = useCallback((m: string) => speakUnits(m, unitSystem), [unitSystem]);
+  const placeErrors = useServerErrors(setError, { fieldOf: formFieldOf, isField: isFormField, speak });
 
   const saveDraft = useCallback(() => {
     storeDraft({ values: getValues(), photos: photosRef.current, place: placeRef.current, savedAt: new Date().toISOString() });

@@ -10,10 +10,10 @@ function one(v: string | string[] | undefined): string | undefined {
 function alertsQuery(raw: unknown) {
   const q = raw as Record<string, string | string[] | undefined>;
   const unread = one(q.unread);
-  if (unread != null && unread !== "true" && unread !== "false") throw new ValidationError({ unread: "unread must be true or false." });
+  if (unread != null && unread !== "true" && unread !== "false") throw new ValidationError({ unread: "Unread only must be true or false." });
   const limitRaw = one(q.limit);
   const limit = limitRaw == null ? 100 : Number(limitRaw);
-  if (!Number.isInteger(limit) || limit < 1 || limit > 500) throw new ValidationError({ limit: "limit must be a whole number from 1 to 500." });
+  if (!Number.isInteger(limit) || limit < 1 || limit > 500) throw new ValidationError({ limit: "The number of alerts to list must be a whole number from 1 to 500." });
   return { unreadOnly: unread === "true", limit };
 }
 
