@@ -95,6 +95,8 @@ export const sites = pgTable("sites", {
   expiryWarningHours: integer("expiry_warning_hours").notNull().default(24),
   /** Last permit number issued on this site; bumped under a row lock so numbers have no gaps. */
   permitCounter: integer("permit_counter").notNull().default(0),
+  /** Last permit request number given on this site (requests of both kinds); only ever goes up. */
+  requestCounter: integer("request_counter").notNull().default(0),
   /** An archived site is read-only and hidden from lists by default; its data is kept. */
   archivedAt: timestamp("archived_at", { withTimezone: true }),
   createdAt: createdAt(),
@@ -424,6 +426,8 @@ export const permits = pgTable(
     kind: permitKind("kind").notNull(),
     /** Sequential per site, assigned at issue. */
     number: integer("number"),
+    /** The request's own number on its site ("Request 14"), given when it is made; never reused. */
+    requestNumber: integer("request_number").notNull(),
     status: permitStatus("status").notNull().default("requested"),
     schemeId: uuid("scheme_id").references(() => schemes.id),
     zoneId: uuid("zone_id").references(() => zones.id),
@@ -452,7 +456,11 @@ export const permits = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [uniqueIndex("permits_site_number").on(t.siteId, t.kind, t.number), index("permits_site_status").on(t.siteId, t.status)],
+  (t) => [
+    uniqueIndex("permits_site_number").on(t.siteId, t.kind, t.number),
+    uniqueIndex("permits_site_request_number").on(t.siteId, t.requestNumber),
+    index("permits_site_status").on(t.siteId, t.status),
+  ],
 );
 
 export const permitMembers = pgTable(

@@ -58,6 +58,17 @@ export async function nextPermitNumber({ siteId }: { siteId: string }, tx: DbOrT
   return row!.n;
 }
 
+/** Next permit request number of a site, the same way as permit numbers: under the site row's lock,
+ * in the request's own transaction, so two requests never share a number. The counter only goes up. */
+export async function nextRequestNumber({ siteId }: { siteId: string }, tx: DbOrTx) {
+  const [row] = await tx
+    .update(sites)
+    .set({ requestCounter: sql`${sites.requestCounter} + 1` })
+    .where(eq(sites.id, siteId))
+    .returning({ n: sites.requestCounter });
+  return row!.n;
+}
+
 /** Ids of the members in a permit's scope (not removed). */
 export async function listPermitMemberIds({ permitId }: { permitId: string }, tx: DbOrTx = db) {
   const rows = await tx
@@ -198,6 +209,7 @@ export async function listPermits(f: PermitListFilter, tx: DbOrTx = db) {
       id: permits.id,
       kind: permits.kind,
       number: permits.number,
+      requestNumber: permits.requestNumber,
       status: permits.status,
       requestedAt: permits.requestedAt,
       issuedAt: permits.issuedAt,

@@ -192,6 +192,9 @@ export async function seed() {
     }) {
       const site = siteRows[p.site]!;
       const issued = p.number != null;
+      // Each request's own number on its site, in the order the demo makes them.
+      site.requestCounter += 1;
+      await tx.update(sites).set({ requestCounter: site.requestCounter }).where(eq(sites.id, site.id));
       const issuedAt = issued ? new Date(now - (p.issuedDaysAgo ?? 1) * DAY) : null;
       const [row] = await tx
         .insert(permits)
@@ -199,6 +202,7 @@ export async function seed() {
           siteId: site.id,
           kind: p.kind,
           number: p.number,
+          requestNumber: site.requestCounter,
           status: p.status,
           schemeId: schemeRows[`${p.site}.${p.scheme}`]!.id,
           zoneId: zoneRows[`${p.site}.${p.zone}`]!.id,

@@ -25,8 +25,8 @@ export type PermitPdfData = {
   siteCode: string;
   zones: string[];
   schemes: string[];
-  requestedBy: string;
-  requestedAt: string;
+  /** "Request 14 by Dana Lee, 3 Dec 2026, 09:30 GMT": the request it was issued from. */
+  requestReference: string;
   requestNote: string | null;
   issuedBy: string;
   issuedAt: string;
@@ -97,7 +97,7 @@ export function PermitDocument({ data, size }: { data: PermitPdfData; size: "A4"
     ["Site", `${data.siteName} (${data.siteCode})`],
     [data.zones.length > 1 ? "Zones" : "Zone", data.zones.join("; ") || "—"],
     [data.schemes.length > 1 ? "Schemes" : "Scheme", data.schemes.join("; ") || "—"],
-    ["Requested by", `${data.requestedBy}, ${data.requestedAt}`],
+    ["Request", data.requestReference],
     ["Issued by", `${data.issuedBy}, ${data.issuedAt}`],
     ["Valid until", data.validUntil],
   ];

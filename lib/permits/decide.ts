@@ -25,7 +25,7 @@ export async function refusePermit({ user, site, resource, input: { reason } }: 
       const scope = await listPermitMembers({ permitId: locked.id }, tx);
       const requester = await getPermitRequester({ userId: locked.requestedBy }, tx);
       const mail = permitRefusedEmail({
-        reference: requestReference({ requestedByName: requester?.name, requestedAt: locked.requestedAt }, site.timezone),
+        reference: requestReference({ requestNumber: locked.requestNumber, requestedByName: requester?.name, requestedAt: locked.requestedAt }, site.timezone),
         kindLabel: PERMIT_KIND_LABELS[locked.kind],
         siteName: site.name,
         scope: scopeWords(scope.length, zonesOf(scope)),

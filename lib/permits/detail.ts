@@ -85,7 +85,9 @@ export function permitJson(d: PermitDetail) {
     number: p.number,
     numberLabel: d.numberLabel,
     /** Who asked and when, in the site's time zone: the request's reference before (and after) it has a number. */
-    requestReference: requestReference({ requestedByName: d.view.requestedByName, requestedAt: p.requestedAt }, d.timeZone),
+    requestReference: requestReference({ requestNumber: p.requestNumber, requestedByName: d.view.requestedByName, requestedAt: p.requestedAt }, d.timeZone),
+    /** The request's number on its site (in `requestReference`: "Request 14 by …"). */
+    requestNumber: p.requestNumber,
     status: p.status,
     scheme: d.view.schemeReference ? { id: p.schemeId, reference: d.view.schemeReference, category: d.view.schemeCategory, hasCertificate: !!d.view.schemeCertificateKey } : null,
     zone: d.view.zoneName ? { id: p.zoneId, name: d.view.zoneName } : null,

@@ -68,7 +68,7 @@ export async function issuePermit(ctx: Ctx, nowArg?: Date) {
       const zoneNames = zonesOf(scope);
       const facts = {
         numberLabel: label,
-        request: requestReference({ requestedByName: requester?.name, requestedAt: locked.requestedAt }, site.timezone),
+        request: requestReference({ requestNumber: locked.requestNumber, requestedByName: requester?.name, requestedAt: locked.requestedAt }, site.timezone),
         kindLabel: PERMIT_KIND_LABELS[locked.kind],
         siteName: site.name,
         scope: scopeWords(scope.length, zoneNames),

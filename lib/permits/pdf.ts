@@ -13,6 +13,7 @@ import { formatDateTime } from "@/lib/format-date";
 import { fmtForce, fmtValidUntil, fmtLength, fmtUtilisation, type UnitSystem } from "./format";
 import { evidenceFinding } from "./preconditions";
 import { permitUrl } from "./urls";
+import { requestReference } from "./words";
 
 export type PaperSize = "A4" | "LETTER";
 
@@ -39,8 +40,7 @@ export function permitPdfData(r: PermitRecord): PermitPdfData | null {
     siteCode: v.siteCode,
     zones,
     schemes,
-    requestedBy: v.requestedByName,
-    requestedAt: formatDateTime(p.requestedAt, tz),
+    requestReference: requestReference({ requestNumber: p.requestNumber, requestedByName: v.requestedByName, requestedAt: p.requestedAt }, tz),
     requestNote: p.requestNote,
     issuedBy: v.approvedByName ?? "—",
     issuedAt: formatDateTime(p.issuedAt, tz),

@@ -3,7 +3,7 @@
 import "server-only";
 import { transaction } from "@/db";
 import { recordAudit } from "@/db/queries/audit";
-import { getSiteMembersForPermit, insertPermit, insertPermitMembers, listSchemeZoneMembers, type ReviewMember } from "@/db/queries/permits";
+import { getSiteMembersForPermit, insertPermit, insertPermitMembers, listSchemeZoneMembers, nextRequestNumber, type ReviewMember } from "@/db/queries/permits";
 import { getScheme } from "@/db/queries/schemes";
 import type { SessionUser } from "@/db/queries/users";
 import { getZone } from "@/db/queries/zones";
@@ -82,6 +82,7 @@ export async function requestPermit({ user, site, input }: Ctx) {
       {
         siteId,
         kind: input.kind,
+        requestNumber: await nextRequestNumber({ siteId }, tx),
         schemeId,
         zoneId,
         requestedBy: user.id,
@@ -99,7 +100,7 @@ export async function requestPermit({ user, site, input }: Ctx) {
         action: "permit.requested",
         entityType: "permit",
         entityId: row.id,
-        after: { kind: row.kind, members: scope.map((m) => m.tag), schemeId, zoneId, evidence: row.evidence, note: row.requestNote },
+        after: { kind: row.kind, requestNumber: row.requestNumber, members: scope.map((m) => m.tag), schemeId, zoneId, evidence: row.evidence, note: row.requestNote },
       },
       tx,
     );

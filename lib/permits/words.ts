@@ -12,10 +12,14 @@ export const HOUR = 3600_000;
 export const DAY = 24 * HOUR;
 
 /**
- * A request's own reference until it is issued and numbered: who asked and when, in the site's
- * time zone ("Request by Dana Lee, 3 Dec 2026, 09:30 GMT") — the same words in the list, on the
- * permit page and in e-mails.
+ * A request's own reference until it is issued and numbered: its number on the site, who asked and
+ * when, in the site's time zone ("Request 14 by Dana Lee, 3 Dec 2026, 09:30 GMT") — the same words
+ * in the list, on the permit page, in e-mails and on the PDF. The number tells apart two requests
+ * one person made in the same minute.
  */
-export function requestReference(p: { requestedByName: string | null | undefined; requestedAt: Date | string }, timeZone: string) {
-  return `Request by ${p.requestedByName || "an unknown person"}, ${formatDateTime(p.requestedAt, timeZone)}`;
+export function requestReference(
+  p: { requestNumber: number; requestedByName: string | null | undefined; requestedAt: Date | string },
+  timeZone: string,
+) {
+  return `Request ${p.requestNumber} by ${p.requestedByName || "an unknown person"}, ${formatDateTime(p.requestedAt, timeZone)}`;
 }

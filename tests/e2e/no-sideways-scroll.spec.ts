@@ -62,7 +62,7 @@ for (const [email, role] of PEOPLE) {
     expect(memberHref).toMatch(/\/members\/[0-9a-f-]{36}/);
     await expectFits(page, memberHref!);
     await page.goto(`/sites/${siteId}/permits`);
-    const permit = page.locator(`a[href^="/sites/${siteId}/permits/"]:visible`).filter({ hasText: /PTL-\d|PTS-\d|Request by / }).first();
+    const permit = page.locator(`a[href^="/sites/${siteId}/permits/"]:visible`).filter({ hasText: /PTL-\d|PTS-\d|Request \d+ by / }).first();
     const permitHref = await permit.getAttribute("href");
     expect(permitHref).toMatch(/\/permits\/[0-9a-f-]{36}/);
     await expectFits(page, permitHref!);

@@ -9,7 +9,7 @@
 //   onboarding, photos, PDFs — e-mail links from the outbox, invitations, JPEG uploads, PDF text
 // Every helper with more than one input takes one object.
 import { randomUUID } from "node:crypto";
-import { and, eq, inArray } from "drizzle-orm";
+import { and, eq, inArray, sql as dsql } from "drizzle-orm";
 import { PDFParse } from "pdf-parse";
 import sharp from "sharp";
 import { db, sql } from "@/db";
@@ -454,10 +454,12 @@ export async function makeAlertsOrg({ label }: { label: string }) {
   }
 
   async function addPermit(o: { memberIds: string[]; validUntil: Date; number: number; recipients?: string[] }) {
+    // The request number as the app gives it: the site's counter, bumped.
+    const [counter] = await db.update(sites).set({ requestCounter: dsql`${sites.requestCounter} + 1` }).where(eq(sites.id, site!.id)).returning({ n: sites.requestCounter });
     const [p] = await db
       .insert(permits)
       .values({
-        siteId: site!.id, kind: "load", number: o.number, status: "issued", schemeId: scheme!.id, requestedBy: people.engineer.id,
+        siteId: site!.id, kind: "load", number: o.number, requestNumber: counter!.n, status: "issued", schemeId: scheme!.id, requestedBy: people.engineer.id,
         approvedBy: people.coordinator.id, issuedAt: new Date(o.validUntil.getTime() - 7 * 86_400_000), validUntil: o.validUntil,
         recipients: o.recipients ?? [people.supervisor.email, people.engineer.email],
       })

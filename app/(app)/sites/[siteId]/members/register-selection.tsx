@@ -2,9 +2,10 @@
 // What can be done with the members chosen in the register: QR labels, a permit request for them,
 // or recording them all as inspected and satisfactory.
 import Link from "next/link";
+import { useState } from "react";
 import { buttonClass } from "@/components/ui/button";
 import { BulkSatisfactory } from "./register-bulk-inspect";
-import { LabelsForFiltered, MAX_LABELS, useLabelSheet } from "./register-labels";
+import { LabelsForFiltered, LabelStartPicker, MAX_LABELS, useLabelSheet } from "./register-labels";
 
 /** Ids in a permit-request link: a request takes at most this many members from the register at once. */
 export const MAX_PERMIT_PREFILL = 200;
@@ -13,6 +14,8 @@ export function RegisterSelection({
   siteId, selectedIds, onClear, filterQs, total, canRequestPermit, canInspect,
 }: { siteId: string; selectedIds: string[]; onClear: () => void; filterQs: string; total: number | undefined; canRequestPermit: boolean; canInspect: boolean }) {
   const labels = useLabelSheet(siteId);
+  // The first free label of a part-used sheet, kept while members are chosen and cleared.
+  const [start, setStart] = useState(1);
   const n = selectedIds.length;
   return (
     <div className="order-last flex flex-wrap items-center gap-2 rounded-lg bg-paper-sunk p-2 md:order-none print:hidden" role="group" aria-label="Chosen members">
@@ -21,7 +24,7 @@ export function RegisterSelection({
           <span className="text-sm font-semibold" data-testid="selection-count">
             {n} chosen:
           </span>
-          <button type="button" className={buttonClass("primary", "text-sm")} onClick={() => labels.download(selectedIds)} disabled={labels.busy || n > MAX_LABELS}>
+          <button type="button" className={buttonClass("primary", "text-sm")} onClick={() => labels.download(selectedIds, start)} disabled={labels.busy || n > MAX_LABELS}>
             {labels.busy ? "Making labels…" : `QR labels for ${n}`}
           </button>
           {canRequestPermit ? (
@@ -41,9 +44,10 @@ export function RegisterSelection({
       ) : (
         <>
           <span className="text-sm font-semibold">QR labels:</span>
-          <LabelsForFiltered siteId={siteId} filterQs={filterQs} total={total} />
+          <LabelsForFiltered siteId={siteId} filterQs={filterQs} total={total} start={start} />
         </>
       )}
+      <LabelStartPicker value={start} onChange={setStart} />
       {canInspect ? <BulkSatisfactory siteId={siteId} selectedIds={selectedIds} onDone={onClear} /> : null}
       {labels.error ? (
         <p role="alert" className="w-full font-semibold text-bad">

@@ -244,7 +244,7 @@ export default async function PermitPage({ params }: { params: Promise<{ siteId:
   const v = d.view;
   const tz = site.timezone;
   const when = (x: Date | null) => formatDateTime(x, tz);
-  const title = d.numberLabel ?? `${PERMIT_KIND_LABELS[p.kind]} — ${requestReference({ requestedByName: v.requestedByName, requestedAt: p.requestedAt }, tz)}`;
+  const title = d.numberLabel ?? `${PERMIT_KIND_LABELS[p.kind]} — ${requestReference({ requestNumber: p.requestNumber, requestedByName: v.requestedByName, requestedAt: p.requestedAt }, tz)}`;
   const evidenceFinding = p.kind === "strike" ? d.evaluation.permit.find((f) => f.key === "evidence") : undefined;
   const waiting = (p.status === "issued" && !p.pdfKey) || d.emails.some((e) => e.waiting || e.status === "queued" || e.status === "sending");
 

@@ -1,16 +1,18 @@
-// GET (the register's filters) or POST { memberIds } → a PDF sheet of QR tag labels.
+// GET (the register's filters, ?start=) or POST { memberIds, start? } → a PDF sheet of QR tag labels,
+// the first label in cell `start` (1–21) of a part-used sheet.
 import { getMembersByIds, listMembers, type MemberListItem } from "@/db/queries/member-list";
 import { siteRoute } from "@/lib/api/route";
 import { env } from "@/lib/env";
-import { ValidationError } from "@/lib/errors";
 import { renderLabelSheet } from "@/lib/pdf/labels";
-import { labelsRequestSchema, MAX_LABELS } from "@/lib/validations/labels";
+import { fieldErrorsFromZod, ValidationError } from "@/lib/errors";
+import { labelsRequestSchema, labelStartSchema, MAX_LABELS } from "@/lib/validations/labels";
 import { memberListQuery } from "@/lib/register/member-query";
 
 type Site = { id: string; name: string; code: string };
 
-async function pdfResponse(site: Site, items: MemberListItem[]) {
+async function pdfResponse(site: Site, items: MemberListItem[], start: number) {
   const pdf = await renderLabelSheet({
+    start,
     siteId: site.id,
     siteName: site.name,
     siteCode: site.code,
@@ -27,8 +29,26 @@ async function pdfResponse(site: Site, items: MemberListItem[]) {
   });
 }
 
-export const GET = siteRoute({ resource: "site", permission: "viewSite", query: memberListQuery({ wholeSet: true }) }, async ({ site, query }) => {
-  const { sort, dir, filters } = query;
+const registerQuery = memberListQuery({ wholeSet: true });
+
+/** The register's filters plus `start`, each refused with its own field and reason. */
+function labelsQuery(raw: unknown) {
+  const startRaw = (raw as Record<string, string | string[] | undefined>).start;
+  const start = labelStartSchema.safeParse(Array.isArray(startRaw) ? startRaw[0] : startRaw === "" ? undefined : startRaw);
+  let register: ReturnType<typeof registerQuery> | undefined;
+  let fields: Record<string, string> = start.success ? {} : fieldErrorsFromZod(start.error.issues.map((i) => ({ ...i, path: ["start"] })));
+  try {
+    register = registerQuery(raw);
+  } catch (e) {
+    if (!(e instanceof ValidationError)) throw e;
+    fields = { ...e.fields, ...fields };
+  }
+  if (!register || !start.success) throw new ValidationError(fields, "Some query values need attention.");
+  return { ...register, start: start.data };
+}
+
+export const GET = siteRoute({ resource: "site", permission: "viewSite", query: labelsQuery }, async ({ site, query }) => {
+  const { sort, dir, filters, start } = query;
   const page = await listMembers({ siteId: site.id, filters, sort, dir, limit: MAX_LABELS });
   if (page.items.length === 0) throw new ValidationError({ _: "No member matches these filters, so there is no label to print." }, "No member matches these filters.");
   if (page.nextCursor)
@@ -36,7 +56,7 @@ export const GET = siteRoute({ resource: "site", permission: "viewSite", query: 
       { _: `${page.total ?? "More than " + MAX_LABELS} members match; a sheet holds at most ${MAX_LABELS} labels. Narrow the filters or choose members.` },
       `Too many members for one label sheet (at most ${MAX_LABELS}).`,
     );
-  return pdfResponse(site, page.items);
+  return pdfResponse(site, page.items, start);
 });
 
 export const POST = siteRoute({ resource: "site", permission: "viewSite", body: labelsRequestSchema }, async ({ site, input }) => {
@@ -48,5 +68,5 @@ export const POST = siteRoute({ resource: "site", permission: "viewSite", body: 
       memberIds: `${missing} of the chosen member${missing === 1 ? " is" : "s are"} not on this site's register (deleted, or from another site).`,
     });
   }
-  return pdfResponse(site, items);
+  return pdfResponse(site, items, input.start);
 });
