@@ -4,7 +4,7 @@ import { getMembersByIds, listMembers, type MemberListItem } from "@/db/queries/
 import { siteRoute } from "@/lib/api/route";
 import { env } from "@/lib/env";
 import { renderLabelSheet } from "@/lib/pdf/labels";
-import { fieldErrorsFromZod, ValidationError } from "@/lib/errors";
+import { ValidationError } from "@/lib/errors";
 import { labelsRequestSchema, labelStartSchema, MAX_LABELS } from "@/lib/validations/labels";
 import { memberListQuery } from "@/lib/register/member-query";
 
@@ -29,25 +29,7 @@ async function pdfResponse(site: Site, items: MemberListItem[], start: number) {
   });
 }
 
-const registerQuery = memberListQuery({ wholeSet: true });
-
-/** The register's filters plus `start`, each refused with its own field and reason. */
-function labelsQuery(raw: unknown) {
-  const startRaw = (raw as Record<string, string | string[] | undefined>).start;
-  const start = labelStartSchema.safeParse(Array.isArray(startRaw) ? startRaw[0] : startRaw === "" ? undefined : startRaw);
-  let register: ReturnType<typeof registerQuery> | undefined;
-  let fields: Record<string, string> = start.success ? {} : fieldErrorsFromZod(start.error.issues.map((i) => ({ ...i, path: ["start"] })));
-  try {
-    register = registerQuery(raw);
-  } catch (e) {
-    if (!(e instanceof ValidationError)) throw e;
-    fields = { ...e.fields, ...fields };
-  }
-  if (!register || !start.success) throw new ValidationError(fields, "Some query values need attention.");
-  return { ...register, start: start.data };
-}
-
-export const GET = siteRoute({ resource: "site", permission: "viewSite", query: labelsQuery }, async ({ site, query }) => {
+export const GET = siteRoute({ resource: "site", permission: "viewSite", query: memberListQuery({ wholeSet: true, extra: { start: labelStartSchema } }) }, async ({ site, query }) => {
   const { sort, dir, filters, start } = query;
   const page = await listMembers({ siteId: site.id, filters, sort, dir, limit: MAX_LABELS });
   if (page.items.length === 0) throw new ValidationError({ _: "No member matches these filters, so there is no label to print." }, "No member matches these filters.");
