@@ -47,27 +47,22 @@ export async function updatePermit({ permitId, values }: { permitId: string; val
   return row!;
 }
 
-/** Next permit number of a site. The UPDATE holds the site row's lock until the transaction ends,
- * so concurrent issues queue here, and a rolled-back issue gives its number back: no gaps. */
-export async function nextPermitNumber({ siteId }: { siteId: string }, tx: DbOrTx) {
+/** The next value of one of a site's counters. The UPDATE holds the site row's lock until the
+ * transaction ends, so concurrent callers queue here, and a rolled-back one gives its number back. */
+async function nextSiteCounter(siteId: string, key: "permitCounter" | "requestCounter", tx: DbOrTx) {
   const [row] = await tx
     .update(sites)
-    .set({ permitCounter: sql`${sites.permitCounter} + 1` })
+    .set({ [key]: sql`${sites[key]} + 1` })
     .where(eq(sites.id, siteId))
-    .returning({ n: sites.permitCounter });
+    .returning({ n: sites[key] });
   return row!.n;
 }
 
-/** Next permit request number of a site, the same way as permit numbers: under the site row's lock,
- * in the request's own transaction, so two requests never share a number. The counter only goes up. */
-export async function nextRequestNumber({ siteId }: { siteId: string }, tx: DbOrTx) {
-  const [row] = await tx
-    .update(sites)
-    .set({ requestCounter: sql`${sites.requestCounter} + 1` })
-    .where(eq(sites.id, siteId))
-    .returning({ n: sites.requestCounter });
-  return row!.n;
-}
+/** Next permit number of a site: no gaps, no repeats. */
+export const nextPermitNumber = ({ siteId }: { siteId: string }, tx: DbOrTx) => nextSiteCounter(siteId, "permitCounter", tx);
+
+/** Next permit request number of a site, the same way, in the request's own transaction. */
+export const nextRequestNumber = ({ siteId }: { siteId: string }, tx: DbOrTx) => nextSiteCounter(siteId, "requestCounter", tx);
 
 /** Ids of the members in a permit's scope (not removed). */
 export async function listPermitMemberIds({ permitId }: { permitId: string }, tx: DbOrTx = db) {
