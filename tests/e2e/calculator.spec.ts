@@ -17,6 +17,19 @@ test("an engineer checks a prop at its extension and reads the working", async (
   await expect(page.getByTestId("verdict")).toContainText(/PASS|FAIL/);
   await expect(page.getByRole("table")).toContainText("EN 1065");
   await expect(page.getByText("Capacity against length")).toBeVisible();
+  // Issue #16: the working's source column names the standard and clause only; a value awaiting
+  // confirmation is flagged beside it in words a checker reads, not folded into the citation.
+  const working = page.getByRole("table", { name: "Working" });
+  const strength = working.getByRole("row").filter({ hasText: "Nominal characteristic strength" });
+  await expect(strength).toHaveCount(1);
+  await expect(strength.locator('[data-part="source"]')).toHaveText("EN 1065:1998 Table 2");
+  const flag = strength.locator('[data-part="to-confirm"]');
+  await expect(flag).toBeVisible();
+  await expect(flag).toHaveText("Value to be confirmed against EN 1065 Table 2");
+  // No citation in the working carries words in brackets or after a semicolon.
+  const sources = await working.locator('[data-part="source"]').allTextContents();
+  expect(sources.length).toBeGreaterThan(4);
+  for (const s of sources) expect(s).not.toMatch(/;|\s\(/);
 });
 
 test("a steel tube with an impossible wall shows the reason on the field", async ({ page }) => {
