@@ -21,7 +21,27 @@ export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 /** A database handle that may be the pool or an open transaction. */
 export type DbOrTx = Db | Tx;
 
+/** Work to run once a transaction has committed (see onCommit). */
+const commitHooks = new WeakMap<object, (() => void)[]>();
+
 /** One transaction for a use case that composes several db/queries functions (pass `tx` to each). */
-export function transaction<T>(fn: (tx: Tx) => Promise<T>): Promise<T> {
-  return db.transaction(fn);
+export async function transaction<T>(fn: (tx: Tx) => Promise<T>): Promise<T> {
+  const hooks: (() => void)[] = [];
+  const result = await db.transaction((tx) => {
+    commitHooks.set(tx, hooks);
+    return fn(tx);
+  });
+  for (const h of hooks) h();
+  return result;
+}
+
+/**
+ * Runs `fn` after `tx` commits (at once when `tx` is the pool, or a transaction not opened by
+ * `transaction` above — a nested one, say — in which case it also runs at once; callers that need
+ * it after commit use it as a second, not only, safeguard). Never runs for a rolled-back one.
+ */
+export function onCommit(tx: DbOrTx, fn: () => void): void {
+  const hooks = commitHooks.get(tx);
+  if (hooks) hooks.push(fn);
+  else fn();
 }

@@ -235,6 +235,10 @@ const stampColumn = (siteId: string) =>
  * inside a caller's transaction, whose own uncommitted changes others must not see).
  */
 export async function listMembers(args: ListMembersArgs, tx: DbOrTx = db): Promise<MemberListPage> {
+  return (await readPage(args, tx, false)).page;
+}
+
+async function readPage(args: ListMembersArgs, tx: DbOrTx, wantStamp: boolean): Promise<{ page: MemberListPage; stamp?: string }> {
   const { siteId, filters, sort, dir, limit } = args;
   const where = memberFilterConditions(siteId, filters);
   const key = SORT_KEYS[sort];
@@ -251,9 +255,10 @@ export async function listMembers(args: ListMembersArgs, tx: DbOrTx = db): Promi
   }
   const order = ascending ? [sql`${key.expr} asc`, sql`${members.tag} asc`] : [sql`${key.expr} desc`, sql`${members.tag} desc`];
   const useCounts = withTotal && tx === db;
+  const readStamp = useCounts || (wantStamp && tx === db);
 
   const rows = (await tx
-    .select({ ...itemColumns, sortValue: sortValueColumn(sort), ...(useCounts ? { stamp: stampColumn(siteId) } : {}) })
+    .select({ ...itemColumns, sortValue: sortValueColumn(sort), ...(readStamp ? { stamp: stampColumn(siteId) } : {}) })
     .from(members)
     .innerJoin(memberTypes, eq(memberTypes.id, members.memberTypeId))
     .leftJoin(zones, eq(zones.id, members.zoneId))
@@ -293,11 +298,55 @@ export async function listMembers(args: ListMembersArgs, tx: DbOrTx = db): Promi
   const hasNext = backwards ? true : more;
   const hasPrev = backwards ? more : !!c;
   return {
-    items: page.map(toItem),
-    nextCursor: hasNext && last ? cursorFromRow(sort, dir, last) : null,
-    prevCursor: hasPrev && first ? cursorFromRow(sort, dir, first, true) : null,
-    ...(total !== undefined ? { total } : {}),
+    page: {
+      items: page.map(toItem),
+      nextCursor: hasNext && last ? cursorFromRow(sort, dir, last) : null,
+      prevCursor: hasPrev && first ? cursorFromRow(sort, dir, first, true) : null,
+      ...(total !== undefined ? { total } : {}),
+    },
+    // An empty page has no row to carry the stamp: it is not kept.
+    stamp: readStamp ? rows[0]?.stamp : undefined,
   };
+}
+
+/**
+ * Pages already read, by site, filters, order and position, each with the site's member stamp it
+ * was read under (0010 and 0014: renewed when the site's members, or the zone, scheme, type or
+ * photos a page shows, change). A kept page is served only after reading the stamp again and
+ * finding it unchanged — one small indexed read instead of the page's joins — so a poll of an
+ * unchanged register is cheap and a changed one is never served stale. Bounded by rows kept.
+ */
+const keptPages = new Map<string, { stamp: string; page: MemberListPage; rows: number }>();
+const ROWS_KEPT = 20_000;
+let rowsKept = 0;
+
+function keepPage(key: string, stamp: string, page: MemberListPage) {
+  const old = keptPages.get(key);
+  if (old) {
+    rowsKept -= old.rows;
+    keptPages.delete(key);
+  }
+  const rows = page.items.length + 1;
+  while (rowsKept + rows > ROWS_KEPT && keptPages.size) {
+    const [k, v] = keptPages.entries().next().value!;
+    keptPages.delete(k);
+    rowsKept -= v.rows;
+  }
+  keptPages.set(key, { stamp, page, rows });
+  rowsKept += rows;
+}
+
+/** listMembers for the register's API: the same page, from memory when the site has not changed since. */
+export async function listMembersKept(args: Omit<ListMembersArgs, "withTotal">): Promise<MemberListPage> {
+  const key = `${filtersKey(args.siteId, args.filters)}|${args.sort}|${args.dir}|${args.limit}|${args.cursor ?? ""}`;
+  const hit = keptPages.get(key);
+  if (hit) {
+    const [r] = await db.select({ stamp: stampColumn(args.siteId) }).from(sql`(select 1) as one`);
+    if (r?.stamp === hit.stamp) return hit.page;
+  }
+  const { page, stamp } = await readPage(args, db, true);
+  if (stamp !== undefined) keepPage(key, stamp, page);
+  return page;
 }
 
 /** Every matching row in order, a batch at a time (CSV export). */

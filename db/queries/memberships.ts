@@ -1,6 +1,7 @@
 import "server-only";
 import { and, eq, inArray, isNull, notInArray } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
+import { accessChanged } from "@/db/access-cache";
 import { memberships, users, type SiteRole } from "@/db/schema";
 
 export async function listSitePeople({ siteId }: { siteId: string }, tx: DbOrTx = db) {
@@ -56,6 +57,7 @@ export async function setUserRolesOnSite(
   { siteId, userId, roles }: { siteId: string; userId: string; roles: SiteRole[] },
   tx: DbOrTx = db,
 ) {
+  accessChanged(tx);
   const where = and(eq(memberships.siteId, siteId), eq(memberships.userId, userId));
   await tx.delete(memberships).where(roles.length ? and(where, notInArray(memberships.role, roles)) : where);
   if (roles.length)
@@ -71,6 +73,7 @@ export async function addUserRolesOnSite(
   tx: DbOrTx = db,
 ) {
   if (!roles.length) return;
+  accessChanged(tx);
   await tx
     .insert(memberships)
     .values(roles.map((role) => ({ siteId, userId, role })))

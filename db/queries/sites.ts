@@ -1,6 +1,7 @@
 import "server-only";
 import { and, count, eq, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
+import { accessChanged } from "@/db/access-cache";
 import { members, memberships, permits, sites } from "@/db/schema";
 import { countFailingNow } from "./member-history";
 
@@ -51,6 +52,7 @@ export async function getSiteCounts({ siteId }: { siteId: string }, tx: DbOrTx =
 }
 
 export async function createSite({ organisationId, values }: { organisationId: string; values: SiteValues }, tx: DbOrTx = db) {
+  accessChanged(tx);
   const [row] = await tx.insert(sites).values({ organisationId, ...values }).returning(siteColumns);
   return row!;
 }
@@ -59,6 +61,7 @@ export async function updateSite(
   { siteId, values }: { siteId: string; values: Partial<SiteValues> & { archivedAt?: Date | null } },
   tx: DbOrTx = db,
 ) {
+  accessChanged(tx);
   const [row] = await tx.update(sites).set(values).where(eq(sites.id, siteId)).returning(siteColumns);
   return row!;
 }

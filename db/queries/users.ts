@@ -1,6 +1,7 @@
 import "server-only";
 import { and, count, eq, isNull, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db";
+import { accessChanged, keptAccess } from "@/db/access-cache";
 import { memberships, organisations, revokedSessions, signInThrottle, sites, users, type SiteRole } from "@/db/schema";
 import { siteColumns, type SiteColumnsRow } from "./site-columns";
 
@@ -41,8 +42,17 @@ export type SessionAccess = { site: SiteColumnsRow; roles: SiteRole[] };
  * gone from the answer.
  */
 export async function getSessionUserAt(
-  { id, sessionVersion, sid, siteId }: { id: string; sessionVersion?: number; sid?: string; siteId?: string },
+  args: { id: string; sessionVersion?: number; sid?: string; siteId?: string },
   tx: DbOrTx = db,
+): Promise<{ user: SessionUser; access: SessionAccess | null } | null> {
+  // Outside a transaction the answer may come from memory (db/access-cache.ts: dropped on any change).
+  if (tx !== db) return readSessionUserAt(args, tx);
+  return keptAccess(`${args.id}|${args.sessionVersion ?? ""}|${args.sid ?? ""}|${args.siteId ?? ""}`, () => readSessionUserAt(args, tx));
+}
+
+async function readSessionUserAt(
+  { id, sessionVersion, sid, siteId }: { id: string; sessionVersion?: number; sid?: string; siteId?: string },
+  tx: DbOrTx,
 ): Promise<{ user: SessionUser; access: SessionAccess | null } | null> {
   // A signed-out session's id is in revoked_sessions: the same round trip answers both questions.
   const revoked = sid
@@ -168,6 +178,7 @@ export async function lockSetup(tx: DbOrTx) {
 }
 
 export async function createOrganisation({ name, slug }: { name: string; slug: string }, tx: DbOrTx = db) {
+  accessChanged(tx);
   const [row] = await tx.insert(organisations).values({ name, slug }).returning({ id: organisations.id, name: organisations.name });
   return row!;
 }
@@ -176,6 +187,7 @@ export async function createUser(
   v: { organisationId: string; email: string; name: string; passwordHash: string; isOrgAdmin?: boolean },
   tx: DbOrTx = db,
 ) {
+  accessChanged(tx);
   const [row] = await tx
     .insert(users)
     .values({ ...v, email: v.email.toLowerCase(), isOrgAdmin: v.isOrgAdmin ?? false })
@@ -219,6 +231,7 @@ export async function setPasswordHash(
   { userId, passwordHash, endSessions }: { userId: string; passwordHash: string; endSessions: boolean },
   tx: DbOrTx = db,
 ) {
+  accessChanged(tx);
   await tx
     .update(users)
     .set({ passwordHash, ...(endSessions ? { sessionVersion: sql`${users.sessionVersion} + 1` } : {}) })
@@ -227,6 +240,7 @@ export async function setPasswordHash(
 
 /** Deactivated: no sign-in, and every session on every device ends at its next request. */
 export async function setUserDisabled({ userId, disabled }: { userId: string; disabled: boolean }, tx: DbOrTx = db) {
+  accessChanged(tx);
   const [row] = await tx
     .update(users)
     .set({ disabledAt: disabled ? new Date() : null, sessionVersion: sql`${users.sessionVersion} + 1` })
@@ -248,6 +262,7 @@ export const throttleKey = (kind: "reset" | "change", email: string) => `${kind}
 
 /** Ends one session for good: its id is refused until the cookie would have expired anyway. */
 export async function revokeSession({ sid, userId, expiresAt }: { sid: string; userId: string | null; expiresAt: Date }, tx: DbOrTx = db) {
+  accessChanged(tx);
   await tx.insert(revokedSessions).values({ sid, userId, expiresAt }).onConflictDoNothing();
 }
 
