@@ -131,3 +131,46 @@ test.describe("an edit made offline meets a change made on the server meanwhile"
   });
 });
 
+test("after sync the member page shows the server's stored check, no longer provisional, with the API's figure", async ({ page }) => {
+  test.setTimeout(120_000);
+  const tag = `PRV-${runId()}`;
+  await signIn(page, "engineer@demo.example");
+  await openSite(page, WHARF);
+  const siteId = siteIdOf(page);
+  await workerControls(page);
+  await page.goto(`/sites/${siteId}/members/new`);
+  await waitUntilKept(page, `/sites/${siteId}/members/new`, "Log member");
+
+  await goOffline(page.context());
+  await page.reload();
+  await fillMember(page, tag);
+  await page.getByRole("button", { name: "Save and check" }).click();
+  const provisional = page.getByTestId("provisional-check");
+  await expect(provisional).toContainText("Provisional — the server's check is the one stored");
+  const phoneFigure = (await provisional.getByTestId("check-utilisation").textContent())!.trim();
+  expect(phoneFigure).toMatch(/^\d+ %$/);
+  await page.getByTestId("outbox-badge").click();
+  await expect(page.getByTestId("outbox-provisional")).toContainText(`Provisional — checked on this phone: utilisation ${phoneFigure}`);
+  expect(await membersTagged(page, siteId, tag)).toHaveLength(0);
+
+  // Signal: the entry is sent, and the form puts the server's check in the provisional one's place.
+  await goOnline(page.context());
+  await expect(page.getByTestId("server-check-note")).toBeVisible({ timeout: 30_000 });
+  await expect(page.getByTestId("provisional-check")).toHaveCount(0);
+  const [m] = await membersTagged(page, siteId, tag);
+  expect(m).toBeDefined();
+  const stored = await readMember(page, m!.id);
+  expect(stored.check).not.toBeNull();
+  const serverFigure = `${Math.round(stored.check!.utilisation! * 100)} %`;
+  await expect(page.getByTestId("check-utilisation")).toHaveText(serverFigure);
+  // The phone ran the same engine on the same library, so it said the same before sync.
+  expect(phoneFigure).toBe(serverFigure);
+
+  await page.getByRole("link", { name: "Open the member page" }).click();
+  await expect(page.getByRole("heading", { level: 1, name: tag })).toBeVisible();
+  const latest = page.getByRole("region", { name: "Latest capacity check" });
+  await expect(latest.getByTestId("check-utilisation")).toHaveText(serverFigure);
+  await expect(page.getByRole("main")).not.toContainText(/provisional/i);
+  expect(stored.member.utilisation).toBe(stored.check!.utilisation);
+});
+
