@@ -174,3 +174,47 @@ test("after sync the member page shows the server's stored check, no longer prov
   expect(stored.member.utilisation).toBe(stored.check!.utilisation);
 });
 
+test("the second site's Log member, library, zones and schemes are on the phone with no signal, and a member logged there arrives on that site", async ({ page }) => {
+  test.setTimeout(120_000);
+  const tag = `SND-${runId()}`;
+  await signIn(page, "engineer@demo.example");
+  // Only the first site is opened; the engineer also belongs to the basement site.
+  await openSite(page, WHARF);
+  const sites = (await (await page.request.get("/api/v1/sites")).json()) as { items: { id: string; name: string }[] };
+  const second = sites.items.find((s) => s.name === ORCHARD)!.id;
+  const zones = (await (await page.request.get(`/api/v1/sites/${second}/zones`)).json()) as { items: { name: string }[] };
+  const schemes = (await (await page.request.get(`/api/v1/sites/${second}/schemes`)).json()) as { items: { reference: string }[] };
+  const types = (await (await page.request.get(`/api/v1/sites/${second}/member-types`)).json()) as Types;
+  expect(zones.items.length).toBeGreaterThan(0);
+  expect(schemes.items.length).toBeGreaterThan(0);
+  await workerControls(page);
+  const logSecond = `/sites/${second}/members/new`;
+  await waitUntilKept(page, logSecond, "the second site's Log member");
+  await waitUntilKept(page, `/api/v1/sites/${second}/member-types`, "the second site's member library");
+
+  await goOffline(page.context());
+  await page.goto(logSecond);
+  await expect(page.getByTestId("offline-banner")).toBeVisible();
+  await expect(page.getByRole("heading", { name: "Log a member" })).toBeVisible();
+  const optionsOf = (label: string) => page.getByLabel(label, { exact: true }).locator("option").allTextContents();
+  const zoneOptions = (await optionsOf("Zone")).join("\n");
+  for (const z of zones.items) expect(zoneOptions).toContain(z.name);
+  const schemeOptions = (await optionsOf("Scheme")).join("\n");
+  for (const s of schemes.items) expect(schemeOptions).toContain(s.reference);
+  const typeOptions = (await optionsOf("Member type")).join("\n");
+  for (const t of types.items) expect(typeOptions).toContain(t.name);
+  // The kept API reads answer too, with the same library.
+  const keptTypes = await page.evaluate(async (u) => ((await (await fetch(u)).json()) as Types).items.map((t) => t.name), `/api/v1/sites/${second}/member-types`);
+  expect(keptTypes.sort()).toEqual(types.items.map((t) => t.name).sort());
+
+  await fillMember(page, tag, zones.items[0]!.name);
+  await page.getByRole("button", { name: "Save and check" }).click();
+  await expect(page.getByTestId("provisional-check")).toContainText("Provisional");
+  await goOnline(page.context());
+  await expect(page.getByTestId("server-check-note")).toBeVisible({ timeout: 30_000 });
+  const arrived = await membersTagged(page, second, tag);
+  expect(arrived).toHaveLength(1);
+  const detail = await readMember(page, arrived[0]!.id);
+  expect(detail.member).toMatchObject({ tag, extensionMm: 2600, loadN: 8000 });
+});
+
