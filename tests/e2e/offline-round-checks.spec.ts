@@ -218,3 +218,90 @@ test("the second site's Log member, library, zones and schemes are on the phone 
   expect(detail.member).toMatchObject({ tag, extensionMm: 2600, loadN: 8000 });
 });
 
+test("a shared phone: sign-out forgets the kept pages; the next person never sends or sees the first one's entry; it goes once when its author is back", async ({ page }) => {
+  test.setTimeout(180_000);
+  const run = runId();
+  const [tagA, tagB] = [`SHR-${run}-A`, `SHR-${run}-B`];
+  const context = page.context();
+  // Counted at the desk, through the API, whoever is signed in on the phone.
+  const desk = await signInAs("coordinator@demo.example");
+  const onServer = async (siteId: string, tag: string) => {
+    const r = await desk.json<{ items: { tag: string }[] }>(`/api/v1/sites/${siteId}/members?q=${encodeURIComponent(tag)}`);
+    expect(r.status).toBe(200);
+    return r.body.items.filter((m) => m.tag === tag).length;
+  };
+
+  // Person A (the engineer) opens a member page and Log member with signal, then logs a member with none.
+  await signInWithForm(page, "engineer@demo.example");
+  await openSite(page, WHARF);
+  const siteId = siteIdOf(page);
+  await workerControls(page);
+  const made = await page.request.post(`/api/v1/sites/${siteId}/members`, {
+    data: { tag: `SHR-${run}-P`, memberTypeId: await propD(page, siteId), extensionMm: 2500, loadN: 6000 },
+    headers: { origin: APP_URL },
+  });
+  expect(made.status()).toBe(201);
+  const seenUrl = `/sites/${siteId}/members/${((await made.json()) as { member: { id: string } }).member.id}`;
+  await page.goto(seenUrl);
+  await waitUntilKept(page, seenUrl, "the member page A opened");
+  await page.goto(`/sites/${siteId}/members/new`);
+  await waitUntilKept(page, `/sites/${siteId}/members/new`, "Log member");
+  await goOffline(context);
+  await page.reload();
+  await fillMember(page, tagA);
+  await page.getByRole("button", { name: "Save and check" }).click();
+  await expect(page.getByRole("status").filter({ hasText: `${tagA} saved on this phone — waiting to send` })).toBeVisible();
+
+  // A signs out on a weak signal: pages load, but the entry's sending does not get through.
+  const stuck = (route: Route) => route.abort("connectionreset");
+  await context.route("**/api/v1/ping", stuck);
+  await goOnline(context);
+  await page.goto("/sign-out");
+  await expect(page.getByTestId("sign-out-waiting")).toContainText("1 entry saved on this phone has not reached the server yet");
+  await page.getByRole("button", { name: "Sign out anyway" }).click();
+  await expect(page).toHaveURL(/\/sign-in/);
+  await context.unroute("**/api/v1/ping", stuck);
+  expect(await onServer(siteId, tagA)).toBe(0);
+
+  // Nothing A kept is left: the member page A opened is not served to the signed-out phone.
+  await expect.poll(() => page.evaluate(async (u) => (await caches.match(u)) != null, seenUrl)).toBe(false);
+  await expect.poll(() => page.evaluate(async (u) => (await caches.match(u)) != null, `/api/v1/sites/${siteId}/member-types`)).toBe(false);
+  await goOffline(context);
+  await page.goto(seenUrl).catch(() => undefined);
+  await expect(page.getByText(`SHR-${run}-P`)).toHaveCount(0);
+  await goOnline(context);
+
+  // Person B (the coordinator) signs in on the same phone: A's entry is not B's to see or send.
+  await signInWithForm(page, "coordinator@demo.example");
+  await openSite(page, WHARF);
+  await expect(page.getByTestId("outbox-badge")).toHaveCount(0);
+  // B logs one of their own with no signal; back online it is sent, and A's older entry, first in
+  // the queue, would have gone before it had it been sent under B.
+  await workerControls(page);
+  await page.goto(`/sites/${siteId}/members/new`);
+  await waitUntilKept(page, `/sites/${siteId}/members/new`, "Log member for B");
+  await goOffline(context);
+  await page.reload();
+  await fillMember(page, tagB);
+  await page.getByRole("button", { name: "Save and check" }).click();
+  await expect(page.getByTestId("outbox-count")).toHaveText("1");
+  await page.getByTestId("outbox-badge").click();
+  await expect(page.getByTestId("outbox-item")).toHaveCount(1);
+  await expect(page.getByTestId("outbox-item")).toContainText(`Member ${tagB}`);
+  await goOnline(context);
+  await expect(page.getByTestId("server-check-note")).toBeVisible({ timeout: 30_000 });
+  expect(await onServer(siteId, tagB)).toBe(1);
+  expect(await onServer(siteId, tagA)).toBe(0);
+  await expect(page.getByTestId("outbox-badge")).toHaveCount(0);
+
+  // B signs out (nothing of B's waits) and A signs in again: A's entry is sent, once.
+  await page.goto("/sign-out");
+  await page.getByRole("button", { name: "Sign out now" }).click();
+  await expect(page).toHaveURL(/\/sign-in/);
+  await signInWithForm(page, "engineer@demo.example");
+  await expect.poll(() => onServer(siteId, tagA), { timeout: 45_000, message: "A's entry arrives after A signs in again" }).toBe(1);
+  await expect(page.getByTestId("outbox-badge")).toHaveCount(0);
+  await page.reload();
+  await expect(page.getByTestId("outbox-badge")).toHaveCount(0);
+  expect(await onServer(siteId, tagA)).toBe(1);
+});
