@@ -31,8 +31,9 @@ export function kept(page: Page, url: string) {
   return page.evaluate(async (u) => (await caches.match(u)) != null, url);
 }
 
+/** The worker keeps a round's pages some seconds after a page settles, one page at a time (slow on a busy machine). */
 export async function waitUntilKept(page: Page, url: string, what: string) {
-  await expect.poll(() => kept(page, url), { timeout: 30_000, message: `${what} is kept for offline use` }).toBe(true);
+  await expect.poll(() => kept(page, url), { timeout: 60_000, message: `${what} is kept for offline use` }).toBe(true);
 }
 
 export function siteIdOf(page: Page) {
