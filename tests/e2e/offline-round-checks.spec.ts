@@ -221,7 +221,7 @@ test("the second site's Log member, library, zones and schemes are on the phone 
 test("a shared phone: sign-out forgets the kept pages; the next person never sends or sees the first one's entry; it goes once when its author is back", async ({ page }) => {
   test.setTimeout(180_000);
   const run = runId();
-  const [tagA, tagB] = [`SHR-${run}-A`, `SHR-${run}-B`];
+  const [tagA, tagB, draftA] = [`SHR-${run}-A`, `SHR-${run}-B`, `SHR-${run}-D`];
   const context = page.context();
   // Counted at the desk, through the API, whoever is signed in on the phone.
   const desk = await signInAs("coordinator@demo.example");
@@ -251,6 +251,9 @@ test("a shared phone: sign-out forgets the kept pages; the next person never sen
   await fillMember(page, tagA);
   await page.getByRole("button", { name: "Save and check" }).click();
   await expect(page.getByRole("status").filter({ hasText: `${tagA} saved on this phone — waiting to send` })).toBeVisible();
+  // A starts the next one and leaves it unsaved: a draft on the phone.
+  await page.getByRole("button", { name: "Log another member" }).click();
+  await page.getByLabel("Tag (the code on its label)").fill(draftA);
 
   // A signs out on a weak signal: pages load, but the entry's sending does not get through.
   const stuck = (route: Route) => route.abort("connectionreset");
@@ -283,6 +286,9 @@ test("a shared phone: sign-out forgets the kept pages; the next person never sen
   await goOffline(context);
   await page.reload();
   await fillMember(page, tagB);
+  // A's unsaved draft is not offered to B (had it been restored, it would show here or replace B's values).
+  await expect(page.getByText("Your unsaved entry was restored.")).toHaveCount(0);
+  await expect(page.getByLabel("Tag (the code on its label)")).toHaveValue(tagB);
   await page.getByRole("button", { name: "Save and check" }).click();
   await expect(page.getByTestId("outbox-count")).toHaveText("1");
   await page.getByTestId("outbox-badge").click();
@@ -304,4 +310,8 @@ test("a shared phone: sign-out forgets the kept pages; the next person never sen
   await page.reload();
   await expect(page.getByTestId("outbox-badge")).toHaveCount(0);
   expect(await onServer(siteId, tagA)).toBe(1);
+  // A's unsaved draft is A's again.
+  await page.goto(`/sites/${siteId}/members/new`);
+  await expect(page.getByText("Your unsaved entry was restored.")).toBeVisible();
+  await expect(page.getByLabel("Tag (the code on its label)")).toHaveValue(draftA);
 });
