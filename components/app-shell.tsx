@@ -1,5 +1,6 @@
 import Link from "next/link";
 import type { ReactNode } from "react";
+import { DraftOwnerProvider } from "@/components/draft-owner";
 import { Icon } from "@/components/icons";
 import { BottomNav, SideNav } from "@/components/nav-links";
 import { OfflineSupport } from "@/components/offline/offline-support";
@@ -55,7 +56,9 @@ export function AppShell({
         </header>
         {/* When this page was made: a copy kept for offline use shows it in the offline banner. */}
         <OfflineSupport renderedAt={new Date().toISOString()} siteRoot={rootHref.startsWith("/sites/") ? rootHref : undefined} />
-        <main className="mx-auto w-full max-w-6xl flex-1 p-4 md:p-6 print:max-w-none print:p-0">{children}</main>
+        <main className="mx-auto w-full max-w-6xl flex-1 p-4 md:p-6 print:max-w-none print:p-0">
+          <DraftOwnerProvider userId={user.id}>{children}</DraftOwnerProvider>
+        </main>
       </div>
       <BottomNav items={nav} rootHref={rootHref} />
     </div>

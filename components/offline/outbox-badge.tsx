@@ -7,6 +7,7 @@ import { Icon } from "@/components/icons";
 import { Button } from "@/components/ui/button";
 import { serverReachable } from "@/lib/client/outbox/reachable";
 import { releaseStaleSending, sendAll } from "@/lib/client/outbox/send";
+import { editFieldLabel, editValueText } from "@/lib/client/outbox/edit-view";
 import { removeItem, setOutboxUser, updateItem, type OutboxItem } from "@/lib/client/outbox/store";
 import { useOutbox } from "./use-outbox";
 
@@ -183,9 +184,9 @@ function ConflictFix({ item }: { item: OutboxItem }) {
         <tbody>
           {keys.map((k) => (
             <tr key={k}>
-              <td>{k}</td>
-              <td>{String(item.body[k] ?? "—")}</td>
-              <td>{String(current[k] ?? "—")}</td>
+              <th scope="row" className="text-left font-semibold">{editFieldLabel(k)}</th>
+              <td className="tabular">{editValueText(k, item.body[k], item.display)}</td>
+              <td className="tabular">{editValueText(k, current[k], item.display, k === "planPosition" ? current : undefined)}</td>
             </tr>
           ))}
         </tbody>

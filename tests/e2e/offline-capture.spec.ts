@@ -4,36 +4,16 @@
 // and thumbnails; one whose tag was taken meanwhile stays on the phone with the server's reason,
 // and is fixed and resent from the list. Phone project only (playwright.config.ts).
 //
-// Playwright's setOffline does not reach a service worker's own requests (microsoft/playwright
-// issue 2311), so while "offline" the worker's requests are aborted too (route + service worker
-// network events), and the pages shown really come from its cache.
-import { expect, test, type BrowserContext, type Page, type Route } from "@playwright/test";
+// Pages shown "offline" really come from the service worker's cache (see offline-helpers.ts).
+import { expect, test, type Page } from "@playwright/test";
 import sharp from "sharp";
 import { openSite, signIn } from "./helpers";
+import { goOffline, goOnline, membersTagged, workerControls } from "./offline-helpers";
 import { WHARF } from "../support/demo";
-
-// Read when the browser starts, after this file is loaded.
-process.env.PW_EXPERIMENTAL_SERVICE_WORKER_NETWORK_EVENTS = "1";
 
 test.use({ serviceWorkers: "allow" });
 
-const swOffline = (route: Route) => (route.request().serviceWorker() ? route.abort("internetdisconnected") : route.continue());
-async function goOffline(context: BrowserContext) {
-  await context.setOffline(true);
-  await context.route("**", swOffline);
-}
-async function goOnline(context: BrowserContext) {
-  await context.unroute("**", swOffline);
-  await context.setOffline(false);
-}
-
 type Types = { items: { id: string; name: string }[] };
-
-async function membersTagged(page: Page, siteId: string, tag: string) {
-  const r = await page.request.get(`/api/v1/sites/${siteId}/members?q=${encodeURIComponent(tag)}`);
-  expect(r.status()).toBe(200);
-  return ((await r.json()) as { items: { id: string; tag: string; photoCount?: number }[] }).items.filter((m) => m.tag === tag);
-}
 
 async function fillMember(page: Page, tag: string, extension: string) {
   await page.getByLabel("Tag (the code on its label)").fill(tag);
@@ -64,7 +44,7 @@ test("a round with no signal: three members, two photos and an inspection arrive
   const inspectedId = ((await existing.json()) as { member: { id: string } }).member.id;
 
   // With signal: the app is installed as a worker and keeps the round's pages.
-  await expect.poll(() => page.evaluate(() => navigator.serviceWorker?.controller != null), { timeout: 30_000, message: "the service worker controls the page" }).toBe(true);
+  await workerControls(page);
   await page.reload();
   await expect
     .poll(() => page.evaluate(async (u) => (await caches.match(u)) != null, `/sites/${siteId}/members/new`), { timeout: 30_000, message: "Log member is kept for offline use" })

@@ -2,6 +2,7 @@
 // IndexedDB, until the server has them — through a reload, closing the browser or a flat battery.
 // Photos wait as blobs in their own store, uploaded by the same presigned path when online.
 import { openDB, type DBSchema, type IDBPDatabase } from "idb";
+import type { EditDisplay } from "./edit-view";
 
 export type OutboxKind = "member" | "inspection" | "edit";
 
@@ -39,6 +40,8 @@ export type OutboxItem = {
   fields?: Record<string, string>;
   /** For an edit conflict: the member as the server has it now. */
   current?: unknown;
+  /** For an edit: the site's units and the names of its zones, schemes and types, to show it in words. */
+  display?: EditDisplay;
   /** 0–1 while sending. */
   progress?: number;
   step?: string;

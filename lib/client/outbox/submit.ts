@@ -20,6 +20,7 @@ export type SubmitRequest = {
   /** Photos taken with no signal: their bytes wait in the outbox. */
   photos?: QueuedPhoto[];
   provisional?: OutboxItem["provisional"];
+  display?: OutboxItem["display"];
 };
 
 export type SubmitResult<T> =
@@ -63,6 +64,7 @@ export async function submitOrQueue<T>(req: SubmitRequest): Promise<SubmitResult
       photos: photos.map(({ blob: _b, ...p }) => p),
       status: "waiting",
       provisional: req.provisional,
+      display: req.display,
       queuedAt: new Date().toISOString(),
     },
     photos.map((p) => ({ clientId: p.clientId, blob: p.blob })),

@@ -109,6 +109,10 @@ export function MemberEditForm({
       path: `/api/v1/members/${memberId}`,
       presignPath: `/api/v1/members/${memberId}/photos`,
       body: { ...patch, baseVersion: member.version },
+      display: {
+        unitSystem,
+        names: Object.fromEntries([...zones.map((z) => [z.id, z.name]), ...schemes.map((s) => [s.id, `${s.reference} — ${s.title}`]), ...types.map((t) => [t.id, t.name])]),
+      },
     });
     if (!r.sent && r.queued) {
       setMessage({ ok: true, text: "Saved on this phone — waiting to send. If the member changes on the server meanwhile, you are shown both and asked which to keep." });

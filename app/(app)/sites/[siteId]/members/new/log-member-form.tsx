@@ -88,13 +88,19 @@ export function LogMemberForm({
     },
     asDraft,
   );
-  const { ready: loaded, save: storeDraft } = draft;
+  const { ready: loaded, save: storeDraft, clear: clearDraft } = draft;
   const speak = useCallback((m: string) => speakUnits(m, unitSystem), [unitSystem]);
   const placeErrors = useServerErrors(setError, { fieldOf: formFieldOf, isField: isFormField, speak });
 
   const saveDraft = useCallback(() => {
-    storeDraft({ values: getValues(), photos: photosRef.current, place: placeRef.current, savedAt: new Date().toISOString() });
-  }, [getValues, storeDraft]);
+    const values = getValues();
+    // A form with nothing typed in it (the photo picker reports as it opens) is no draft: on the
+    // next visit the form would say an entry was restored when there was none.
+    const blank: MemberFormValues = { ...EMPTY_MEMBER_FORM, tag: prefillTag };
+    const untouched = (Object.keys(blank) as (keyof MemberFormValues)[]).every((k) => values[k] === blank[k]);
+    if (untouched && photosRef.current.length === 0 && !placeRef.current) return clearDraft();
+    storeDraft({ values, photos: photosRef.current, place: placeRef.current, savedAt: new Date().toISOString() });
+  }, [getValues, storeDraft, clearDraft, prefillTag]);
 
   const setPlace = useCallback(
     (p: PlanPlace) => {
