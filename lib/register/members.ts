@@ -8,11 +8,11 @@ import { recordAudit, recordAudits } from "@/db/queries/audit";
 import { getCheck, insertCheck, insertChecks } from "@/db/queries/checks";
 import { getMemberType } from "@/db/queries/member-types";
 import {
-  getMemberForUpdate, getMemberIdByClientId, getMemberIdByTag, getMemberView, insertMember, listMembersOfTypeForCheck,
+  getMemberForUpdate, getMemberIdByClientId, getMemberIdByTag, getMemberView, insertMember, listMembersOfSchemeForCheck, listMembersOfTypeForCheck,
   setLatestChecks, updateMemberRow, type MemberView,
 } from "@/db/queries/members";
 import { attachPhotos, getPhotosByIds } from "@/db/queries/photos";
-import { getScheme } from "@/db/queries/schemes";
+import { getScheme, type SchemeView } from "@/db/queries/schemes";
 import type { SessionUser } from "@/db/queries/users";
 import { getZone } from "@/db/queries/zones";
 import { getZonePlan } from "@/db/queries/zone-plans";
@@ -509,4 +509,74 @@ export async function recheckMember(args: {
     tx,
   );
   return { before, after, outcome, check: checkView(row) };
+}
+
+/** A scheme's fields that a member's derived load depends on: a change to any re-checks those members. */
+export const SCHEME_LOAD_FIELDS = ["slabThicknessMm", "concreteDensityKnM3", "formworkKnM2", "constructionKnM2"] as const;
+
+const listTags = (tags: string[]) => (tags.length > 5 ? `${tags.slice(0, 5).join(", ")} and ${tags.length - 5} more` : tags.join(", "));
+
+/**
+ * Re-derives the load of every member that takes it from the scheme (after the scheme changed) and
+ * re-checks it inside the caller's transaction: new load, a new check with its working and the
+ * reason, the member's latest result, and one audit row per member saying which scheme changed.
+ * A scheme that can no longer give those loads is refused (422, nothing stored). A member that now
+ * fails is picked up by the overload sweep like any other failing check.
+ */
+export async function recheckMembersOfScheme(args: {
+  user: SessionUser;
+  site: SiteForCheck;
+  scheme: SchemeView;
+  changed: string[];
+  tx: Tx;
+}): Promise<{ rechecked: number }> {
+  const { user, site, scheme, changed, tx } = args;
+  const reason = "scheme changed";
+  const rows = await listMembersOfSchemeForCheck({ schemeId: scheme.id, loadSources: ["slab"] }, tx);
+  if (rows.length === 0) return { rechecked: 0 };
+  const derived = rows.map((m) => ({ m, d: deriveSlabLoad(scheme, m.spacingXMm ?? NaN, m.spacingYMm ?? NaN) }));
+  const refused = derived.filter((x) => !x.d.ok);
+  if (refused.length) {
+    const tags = listTags(refused.map((x) => x.m.tag));
+    const many = refused.length === 1 ? "takes its" : "take their";
+    const first = refused[0]!.d as { ok: false; fields: FieldErrors };
+    const why = scheme.slabThicknessMm == null ? "keep the slab thickness, or give those members their working load directly first." : `${Object.values(first.fields)[0] ?? "the load cannot be derived."}`;
+    throw new ValidationError({ slabThicknessMm: `${tags} ${many} load from this scheme's slab: ${why}` });
+  }
+  const types = new Map<string, MemberType>();
+  for (const id of new Set(rows.map((m) => m.memberTypeId))) {
+    const t = await getMemberType({ organisationId: site.organisationId, memberTypeId: id, includeArchived: true }, tx);
+    if (!t) throw new NotFoundError("A member's type");
+    types.set(id, t);
+  }
+  for (const { m, d } of derived) {
+    const slab = (d as { ok: true; info: SlabLoadInfo }).info;
+    const outcome = runCheck(
+      types.get(m.memberTypeId)!,
+      { extensionMm: m.extensionMm, endConditions: m.endConditions, loadN: slab.loadPerMemberN, outOfPlumbDeg: m.outOfPlumbDeg, base: m.base },
+      site,
+    );
+    const row = await insertCheck({ memberId: m.id, reason, createdBy: user.id, ...checkRow(outcome, slab) }, tx);
+    await updateMemberRow(
+      { memberId: m.id, values: { loadN: slab.loadPerMemberN, latestCheckId: row.id, capacityN: row.capacityN, utilisation: row.utilisation, checkPass: row.pass } },
+      tx,
+    );
+    await recordAudit(
+      {
+        organisationId: site.organisationId,
+        siteId: site.id,
+        actorId: user.id,
+        action: "member.rechecked",
+        entityType: "member",
+        entityId: m.id,
+        before: { loadN: m.loadN, latestCheckId: m.latestCheckId, capacityN: m.capacityN, utilisation: m.utilisation, checkPass: m.checkPass },
+        after: {
+          loadN: slab.loadPerMemberN, latestCheckId: row.id, capacityN: row.capacityN, utilisation: row.utilisation, checkPass: row.pass,
+          reason, schemeId: scheme.id, schemeReference: scheme.reference, schemeFields: changed,
+        },
+      },
+      tx,
+    );
+  }
+  return { rechecked: rows.length };
 }

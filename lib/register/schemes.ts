@@ -14,6 +14,7 @@ import type { SessionUser } from "@/db/queries/users";
 import type { ResourceOf, Site } from "@/lib/api/resources";
 import { getZoneByName, insertZone, updateZone as updateZoneRow, type ZoneView } from "@/db/queries/zones";
 import { fieldErrorsFromZod, ValidationError } from "@/lib/errors";
+import { recheckMembersOfScheme, SCHEME_LOAD_FIELDS, type SiteForCheck } from "./members";
 import { deleteObject, getObject, headObject, presignGet, presignPut } from "@/lib/storage";
 import { schemeFilePresignSchema, type SchemeFileComplete, type SchemeParsed } from "@/lib/validations/scheme";
 import type { zoneSchema } from "@/lib/validations/zone";
@@ -53,15 +54,25 @@ export async function createScheme({ user, site, input: v }: { user: SessionUser
   });
 }
 
-export async function editScheme({ user, site, scheme: before, input: v }: { user: SessionUser; site: OnSite; scheme: SchemeView; input: SchemeParsed }) {
+/**
+ * Edits a scheme. A change to what a derived load depends on (the slab) re-derives and re-checks
+ * every member that takes its load from the scheme, in the same transaction: the answer says how
+ * many (`rechecked`).
+ */
+export async function editScheme({ user, site, scheme: before, input: v }: { user: SessionUser; site: SiteForCheck; scheme: SchemeView; input: SchemeParsed }) {
   const schemeId = before.id;
   return transaction(async (tx) => {
     const clash = await getSchemeByReference({ siteId: site.id, reference: v.reference }, tx);
     if (clash && clash.id !== schemeId) throw new ValidationError({ reference: `This site already has a scheme ${v.reference}.` });
     const scheme = (await updateSchemeRow({ siteId: site.id, schemeId, values: v }, tx))!;
+    const changed = SCHEME_LOAD_FIELDS.filter((k) => JSON.stringify(before[k] ?? null) !== JSON.stringify(scheme[k] ?? null));
+    const { rechecked } = changed.length ? await recheckMembersOfScheme({ user, site, scheme, changed, tx }) : { rechecked: 0 };
     const { createdAt: _c, updatedAt: _u, ...b } = before;
-    await recordAudit({ organisationId: site.organisationId, siteId: site.id, actorId: user.id, action: "scheme.updated", entityType: "scheme", entityId: schemeId, before: b, after: v }, tx);
-    return { scheme };
+    await recordAudit(
+      { organisationId: site.organisationId, siteId: site.id, actorId: user.id, action: "scheme.updated", entityType: "scheme", entityId: schemeId, before: b, after: { ...v, rechecked } },
+      tx,
+    );
+    return { scheme, rechecked };
   });
 }
 
