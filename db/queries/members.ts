@@ -16,6 +16,7 @@ const memberColumns = {
   spacingXMm: members.spacingXMm,
   spacingYMm: members.spacingYMm,
   loadSource: members.loadSource,
+  level: members.level,
   loadN: members.loadN,
   status: members.status,
   latestCheckId: members.latestCheckId,

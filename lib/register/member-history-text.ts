@@ -36,6 +36,7 @@ const FIELD_LABELS: Record<string, string> = {
   endConditions: "End conditions",
   loadSource: "Load",
   loadN: "Working load",
+  level: "Level of props (1 = right under the slab being cast)",
   spacingXMm: "As-built spacing X",
   spacingYMm: "As-built spacing Y",
   notes: "Notes",
@@ -74,7 +75,7 @@ function valueText(key: string, v: unknown, ctx: Ctx): string {
         return String(v);
       }
     case "loadSource":
-      return v === "slab" ? "derived from the scheme's slab" : "given directly";
+      return v === "slab" ? "derived from the scheme's slab" : v === "backprop" ? "derived from the scheme's back-propping" : "given directly";
     case "status":
       return statusLabel(v);
     case "zoneId":

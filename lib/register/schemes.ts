@@ -43,12 +43,20 @@ export async function editZone({ user, site, zone: before, input: v }: { user: S
   });
 }
 
+/** Back-propping loads are multiples of the slab's self-weight: a scheme with back-propping needs its slab (checked on the stored row, so a PATCH that keeps either is judged as a whole). */
+function assertBackpropHasSlab(scheme: Pick<SchemeView, "backprop" | "slabThicknessMm">) {
+  if (scheme.backprop && scheme.slabThicknessMm == null) {
+    throw new ValidationError({ backprop: "Back-propping loads are multiples of the slab's self-weight: give the slab thickness (mm) with the back-propping." });
+  }
+}
+
 export async function createScheme({ user, site, input: v }: { user: SessionUser; site: OnSite; input: SchemeParsed }) {
   return transaction(async (tx) => {
     if (await getSchemeByReference({ siteId: site.id, reference: v.reference }, tx)) {
       throw new ValidationError({ reference: `This site already has a scheme ${v.reference}.` });
     }
     const scheme = await insertScheme({ ...v, siteId: site.id, createdBy: user.id }, tx);
+    assertBackpropHasSlab(scheme);
     await recordAudit({ organisationId: site.organisationId, siteId: site.id, actorId: user.id, action: "scheme.created", entityType: "scheme", entityId: scheme.id, after: v }, tx);
     return { scheme };
   });
@@ -65,6 +73,7 @@ export async function editScheme({ user, site, scheme: before, input: v }: { use
     const clash = await getSchemeByReference({ siteId: site.id, reference: v.reference }, tx);
     if (clash && clash.id !== schemeId) throw new ValidationError({ reference: `This site already has a scheme ${v.reference}.` });
     const scheme = (await updateSchemeRow({ siteId: site.id, schemeId, values: v }, tx))!;
+    assertBackpropHasSlab(scheme);
     const changed = SCHEME_LOAD_FIELDS.filter((k) => JSON.stringify(before[k] ?? null) !== JSON.stringify(scheme[k] ?? null));
     const { rechecked } = changed.length ? await recheckMembersOfScheme({ user, site, scheme, changed, tx }) : { rechecked: 0 };
     const { createdAt: _c, updatedAt: _u, ...b } = before;
