@@ -35,6 +35,7 @@ const CHECK_REASONS: Record<string, string> = {
   edited: "After an edit",
   imported: "When imported",
   "plumb reading": "After a plumb reading at an inspection",
+  "scheme changed": "After its scheme changed",
 };
 
 /** An inspection's plumb reading in words: the angle used, and the offset as read. */
