@@ -66,11 +66,11 @@ export function toMemberInput(v: MemberFormValues, system: UnitSystem): { input:
     notes: v.notes.trim() ? v.notes : null,
   };
   if (v.loadSource === "direct") input.loadN = loadN;
-  if (v.loadSource === "backprop") input.level = v.level ? Number(v.level) : null;
   else {
     input.spacingXMm = spacingXMm ?? null;
     input.spacingYMm = spacingYMm ?? null;
   }
+  if (v.loadSource === "backprop") input.level = v.level ? Number(v.level) : null;
   if (v.loadSource === "direct" && (spacingXMm || spacingYMm)) {
     input.spacingXMm = spacingXMm ?? null;
     input.spacingYMm = spacingYMm ?? null;
