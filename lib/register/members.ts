@@ -550,7 +550,12 @@ export async function recheckMembersOfScheme(args: {
 }): Promise<{ rechecked: number }> {
   const { user, site, scheme, changed, tx } = args;
   const reason = "scheme changed";
-  const rows = await listMembersOfSchemeForCheck({ schemeId: scheme.id, loadSources: ["slab", "backprop"] }, tx);
+  // A slab load depends on the slab's four fields; a back-propped load on the slab's weight and the back-propping.
+  const slabChanged = changed.some((k) => k !== "backprop");
+  const bpChanged = changed.some((k) => k === "backprop" || k === "slabThicknessMm" || k === "concreteDensityKnM3");
+  const sources = [...(slabChanged ? (["slab"] as const) : []), ...(bpChanged ? (["backprop"] as const) : [])];
+  if (sources.length === 0) return { rechecked: 0 };
+  const rows = await listMembersOfSchemeForCheck({ schemeId: scheme.id, loadSources: sources }, tx);
   if (rows.length === 0) return { rechecked: 0 };
   type Derived = { ok: true; info: SlabLoadInfo | BackpropLoadInfo } | { ok: false; fields: FieldErrors };
   const derived = rows.map((m) => ({

@@ -7,7 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, count, eq } from "drizzle-orm";
 import { db, sql } from "@/db";
-import { alerts, members, schemes } from "@/db/schema";
+import { alerts, checks, members, schemes } from "@/db/schema";
 import { sweepOverloads } from "@/lib/alerts/scans";
 import { type AlertsOrg, makeAlertsOrg, removeAlertsOrgs } from "../support/fixtures";
 import { signInAs, type Client } from "../support/http";
@@ -127,11 +127,16 @@ describe("a member's load from the scheme's back-propping, by level", () => {
     expect(wide.status).toBe(201);
     expect(wide.body.member.checkPass).toBe(true);
     expect(await sweepOverloads({ siteIds: [fx.site.id] })).toBe(0);
+    // A member on the same scheme whose load comes from its slab: the back-propping is not its load.
+    const slabMember = await fx.addMember({ tag: "BP-SLAB", slab: { spacingMm: 1000 } });
+    const slabChecks = async () => (await db.select({ n: count() }).from(checks).where(eq(checks.memberId, slabMember.id)))[0]!.n;
+    const slabChecksBefore = await slabChecks();
 
     // Formwork 1.0 kN/m²: level 2 = 2w + 2f + q = 12.5 + 2.0 + 1.5 = 16 kN/m² → 36 kN over 2.25 m²: it now fails.
     const r = await patchScheme(schemeBody({ backprop: { ...BP, formworkKPa: 1.0 } }));
     expect(r.status).toBe(200);
     expect(r.body.rechecked).toBe(3);
+    expect(await slabChecks()).toBe(slabChecksBefore);
     const d = await detail(wide.body.member.id);
     expect(d.member.loadN).toBeCloseTo(36_000, 0);
     expect(d.member.checkPass).toBe(false);
@@ -146,6 +151,9 @@ describe("a member's load from the scheme's back-propping, by level", () => {
     const s = await patchScheme(schemeBody({ backprop: { ...BP, formworkKPa: 1.0 }, slabThicknessMm: 300 }));
     expect(s.status).toBe(200);
     expect((await detail(l1!.id)).member.loadN).toBeCloseTo(14_400, 0);
+    // …and the slab member's: 1 m² × (7.5 + 0.5 + 1.5) = 9.5 kN (the fixture slab's own formwork and construction load).
+    expect(s.body.rechecked).toBe(4);
+    expect((await detail(slabMember.id)).member.loadN).toBeCloseTo(9_500, 0);
   });
 
   it("fewer levels than a member stands at, or no back-propping, is refused while members use it; nothing changes", async () => {
