@@ -9,7 +9,7 @@ test("a member logged at level 2 of a back-propped scheme shows its load and the
   const reference = `TW-BPP-${stamp}`;
   const tag = `E2E-BPP-${stamp}`;
   await signIn(page, "coordinator@demo.example");
-  const { siteId, propDName } = await backproppedScheme(page, reference);
+  const { siteId, schemeId, propDName } = await backproppedScheme(page, reference);
 
   await page.goto(`/sites/${siteId}/members/new`);
   await expect(page.getByRole("heading", { name: "Log a member" })).toBeVisible();
@@ -40,4 +40,12 @@ test("a member logged at level 2 of a back-propped scheme shows its load and the
   const working = page.getByRole("table", { name: "Working of this check" });
   await expect(working).toContainText("Largest prop load ratio at level 2");
   await expect(working).toContainText("Grundy & Kabaila 1963");
+
+  // The scheme's per-level table reads on the phone without sideways scrolling, with the caution.
+  await page.goto(`/sites/${siteId}/schemes/${schemeId}`);
+  const levels = page.getByTestId("backprop-levels");
+  await expect(levels.getByRole("row", { name: /^2 / })).toContainText("15.00 kN/m²");
+  await expect(page.getByRole("region", { name: "Back-propping: load on each level of props" }).getByRole("note", { name: "Caution" })).toBeVisible();
+  const schemeOverflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+  expect(schemeOverflow).toBeLessThanOrEqual(0);
 });
