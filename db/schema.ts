@@ -20,7 +20,7 @@ export const memberStatus = pgEnum("member_status", ["draft", "submitted", "load
 export const endCondition = pgEnum("end_condition", [
   "pinned-pinned", "fixed-pinned", "fixed-fixed", "fixed-free", "fixed-sway", "pinned-sway",
 ]);
-export const loadSource = pgEnum("load_source", ["direct", "slab"]);
+export const loadSource = pgEnum("load_source", ["direct", "slab", "backprop"]);
 export const photoStatus = pgEnum("photo_status", ["pending", "ready", "rejected"]);
 export const inspectionResult = pgEnum("inspection_result", ["pass", "fail"]);
 export const permitKind = pgEnum("permit_kind", ["load", "strike"]);
@@ -179,6 +179,9 @@ export const zones = pgTable(
   (t) => [uniqueIndex("zones_site_name").on(t.siteId, t.name)],
 );
 
+/** A scheme's back-propping inputs (validated by schemeBackpropSchema). */
+export type SchemeBackprop = { shoredLevels: number; formworkKPa?: number; constructionKPa?: number; cycles?: number };
+
 export const schemes = pgTable(
   "schemes",
   {
@@ -198,6 +201,11 @@ export const schemes = pgTable(
     concreteDensityKnM3: doublePrecision("concrete_density_kn_m3"),
     formworkKnM2: doublePrecision("formwork_kn_m2"),
     constructionKnM2: doublePrecision("construction_kn_m2"),
+    /**
+     * Back-propping through the casting cycle (Grundy & Kabaila 1963): levels of props in use at
+     * once and the loads at casting, kN/m². The slab's self-weight is the scheme's own slab.
+     */
+    backprop: jsonb("backprop").$type<SchemeBackprop>(),
     validFrom: timestamp("valid_from", { withTimezone: true }),
     validUntil: timestamp("valid_until", { withTimezone: true }),
     drawingKey: text("drawing_key"),
@@ -261,6 +269,11 @@ export const members = pgTable(
     spacingXMm: doublePrecision("spacing_x_mm"),
     spacingYMm: doublePrecision("spacing_y_mm"),
     loadSource: loadSource("load_source").notNull().default("direct"),
+    /**
+     * Level of props a back-propped member stands at, counted down from the slab being cast:
+     * 1 = the props right under it, 2 = the level below… (load source "backprop" only).
+     */
+    level: integer("level"),
     /** Working (unfactored) load the member carries. */
     loadN: doublePrecision("load_n").notNull(),
     status: memberStatus("status").notNull().default("draft"),

@@ -11,8 +11,10 @@ export type MemberFormValues = {
   memberTypeId: string;
   extension: string;
   endConditions: string;
-  loadSource: "direct" | "slab";
+  loadSource: "direct" | "slab" | "backprop";
   load: string;
+  /** Level of props for a load from back-propping ("1" = right under the slab being cast), or "". */
+  level: string;
   spacingX: string;
   spacingY: string;
   notes: string;
@@ -20,7 +22,7 @@ export type MemberFormValues = {
 };
 
 export const EMPTY_MEMBER_FORM: MemberFormValues = {
-  tag: "", zoneId: "", schemeId: "", memberTypeId: "", extension: "", endConditions: "pinned-pinned", loadSource: "direct", load: "", spacingX: "", spacingY: "", notes: "", submit: false,
+  tag: "", zoneId: "", schemeId: "", memberTypeId: "", extension: "", endConditions: "pinned-pinned", loadSource: "direct", load: "", level: "", spacingX: "", spacingY: "", notes: "", submit: false,
 };
 
 export function units(system: UnitSystem): { length: LengthUnit; force: ForceUnit; lengthHint: string; forceHint: string } {
@@ -68,6 +70,7 @@ export function toMemberInput(v: MemberFormValues, system: UnitSystem): { input:
     input.spacingXMm = spacingXMm ?? null;
     input.spacingYMm = spacingYMm ?? null;
   }
+  if (v.loadSource === "backprop") input.level = v.level ? Number(v.level) : null;
   if (v.loadSource === "direct" && (spacingXMm || spacingYMm)) {
     input.spacingXMm = spacingXMm ?? null;
     input.spacingYMm = spacingYMm ?? null;

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq, sql } from "drizzle-orm";
+import { and, eq, inArray, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db, type DbOrTx } from "@/db";
 import { members, memberTypes, schemes, sites, users, zones, type Member, type NewMember } from "@/db/schema";
@@ -16,6 +16,7 @@ const memberColumns = {
   spacingXMm: members.spacingXMm,
   spacingYMm: members.spacingYMm,
   loadSource: members.loadSource,
+  level: members.level,
   loadN: members.loadN,
   status: members.status,
   latestCheckId: members.latestCheckId,
@@ -133,6 +134,16 @@ export async function listMembersOfTypeForCheck({ memberTypeId }: { memberTypeId
     .innerJoin(sites, eq(sites.id, members.siteId))
     .where(eq(members.memberTypeId, memberTypeId))
     .for("update", { of: members });
+}
+
+/** Members of a scheme whose load is derived from it (its slab or its back-propping), locked for a re-check. */
+export async function listMembersOfSchemeForCheck({ schemeId, loadSources }: { schemeId: string; loadSources: Member["loadSource"][] }, tx: DbOrTx) {
+  return tx
+    .select(memberColumns)
+    .from(members)
+    .where(and(eq(members.schemeId, schemeId), inArray(members.loadSource, loadSources)))
+    .orderBy(members.tag)
+    .for("update");
 }
 
 /** Stores the denormalised result of many re-checks at once. */

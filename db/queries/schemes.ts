@@ -18,6 +18,7 @@ const schemeColumns = {
   concreteDensityKnM3: schemes.concreteDensityKnM3,
   formworkKnM2: schemes.formworkKnM2,
   constructionKnM2: schemes.constructionKnM2,
+  backprop: schemes.backprop,
   validFrom: schemes.validFrom,
   validUntil: schemes.validUntil,
   drawingKey: schemes.drawingKey,

@@ -18,6 +18,7 @@ export {
   calculateSlabLoad,
   workingAreaConstructionLoad,
   falseworkWorkingAreaLoad,
+  WET_REINFORCED_CONCRETE_KN_M3,
   type SlabLoadBreakdown,
   type SlabLoadResult,
 } from "./slab-load";

@@ -61,8 +61,8 @@ export function checkView(row: {
   createdAt: Date;
 }): CheckView {
   const result = row.result as { ok?: boolean; warnings?: string[]; errors?: { field: string; message: string }[]; loadBasis?: string; basis?: string };
-  const inputs = row.inputs as { basis?: string; loadFactor?: number; loadFactorSource?: string; slabLoad?: { warnings?: string[] } };
-  const warnings = [...(result.warnings ?? []), ...(inputs.slabLoad?.warnings ?? [])];
+  const inputs = row.inputs as { basis?: string; loadFactor?: number; loadFactorSource?: string; slabLoad?: { warnings?: string[] }; backpropLoad?: { warnings?: string[] } };
+  const warnings = [...(result.warnings ?? []), ...(inputs.slabLoad?.warnings ?? []), ...(inputs.backpropLoad?.warnings ?? [])];
   const bearing = bearingView(row.result, row.inputs);
   return {
     id: row.id,

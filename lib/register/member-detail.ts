@@ -67,8 +67,9 @@ export async function memberDetail({ member, site }: { member: MemberView; site:
     check: latestRow ? checkView(latestRow) : null,
     checks: checks.map((c) => {
       const result = c.result as { steps?: Step[] };
-      const slab = (c.inputs as { slabLoad?: { steps?: Step[] } }).slabLoad;
-      return { ...checkView(c), reason: c.reason, createdByName: c.createdByName, steps: [...(slab?.steps ?? []), ...(result.steps ?? [])] };
+      const inputs = c.inputs as { slabLoad?: { steps?: Step[] }; backpropLoad?: { steps?: Step[] } };
+      const load = inputs.slabLoad ?? inputs.backpropLoad;
+      return { ...checkView(c), reason: c.reason, createdByName: c.createdByName, steps: [...(load?.steps ?? []), ...(result.steps ?? [])] };
     }),
     photos: await Promise.all(photoRows.map((p) => photoView({ ...p, status: "ready", memberId: member.id, rejectReason: null }))),
     inspections,

@@ -36,11 +36,20 @@ const FIELD_LABELS: Record<string, string> = {
   endConditions: "End conditions",
   loadSource: "Load",
   loadN: "Working load",
+  level: "Level of props (1 = right under the slab being cast)",
   spacingXMm: "As-built spacing X",
   spacingYMm: "As-built spacing Y",
   notes: "Notes",
   status: "Status",
   planPosition: "Place on the zone plan",
+};
+/** A scheme's fields that a derived load depends on, as a re-check after a scheme change names them. */
+const SCHEME_FIELD_LABELS: Record<string, string> = {
+  slabThicknessMm: "slab thickness",
+  concreteDensityKnM3: "concrete density",
+  formworkKnM2: "formwork self-weight",
+  constructionKnM2: "construction operations load",
+  backprop: "back-propping",
 };
 /** Kept from the record but said through the check sentence, not one by one. */
 const CHECK_KEYS = new Set(["latestCheckId", "capacityN", "utilisation", "checkPass", "check"]);
@@ -66,7 +75,7 @@ function valueText(key: string, v: unknown, ctx: Ctx): string {
         return String(v);
       }
     case "loadSource":
-      return v === "slab" ? "derived from the scheme's slab" : "given directly";
+      return v === "slab" ? "derived from the scheme's slab" : v === "backprop" ? "derived from the scheme's back-propping" : "given directly";
     case "status":
       return statusLabel(v);
     case "zoneId":
@@ -137,6 +146,13 @@ export function sentence(row: AuditRow, ctx: Ctx): { summary: string; details: s
           summary: deg > 0 ? `Re-checked ${deg}° out of plumb, as read at an inspection.` : "Re-checked standing plumb, as read at an inspection.",
           details: checkText,
         };
+      }
+      if (after.reason === "scheme changed") {
+        const ref = typeof after.schemeReference === "string" ? `scheme ${after.schemeReference}` : "its scheme";
+        const fields = Array.isArray(after.schemeFields) ? after.schemeFields.map((f) => SCHEME_FIELD_LABELS[String(f)]).filter(Boolean) : [];
+        const what = fields.length ? ` (${fields.join(", ")})` : "";
+        const load = typeof before.loadN === "number" && typeof after.loadN === "number" && before.loadN !== after.loadN ? [`Working load changed from ${valueText("loadN", before.loadN, ctx)} to ${valueText("loadN", after.loadN, ctx)}.`] : [];
+        return { summary: `Re-checked because ${ref} was changed${what}.`, details: [...load, ...checkText] };
       }
       const rev = typeof after.memberTypeRevision === "number" ? ` (revision ${after.memberTypeRevision})` : "";
       return { summary: `Re-checked because its member type was revised${rev}.`, details: [checkSentence({ pass: after.checkPass, utilisation: after.utilisation }) ?? ""].filter(Boolean) };

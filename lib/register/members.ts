@@ -8,11 +8,11 @@ import { recordAudit, recordAudits } from "@/db/queries/audit";
 import { getCheck, insertCheck, insertChecks } from "@/db/queries/checks";
 import { getMemberType } from "@/db/queries/member-types";
 import {
-  getMemberForUpdate, getMemberIdByClientId, getMemberIdByTag, getMemberView, insertMember, listMembersOfTypeForCheck,
+  getMemberForUpdate, getMemberIdByClientId, getMemberIdByTag, getMemberView, insertMember, listMembersOfSchemeForCheck, listMembersOfTypeForCheck,
   setLatestChecks, updateMemberRow, type MemberView,
 } from "@/db/queries/members";
 import { attachPhotos, getPhotosByIds } from "@/db/queries/photos";
-import { getScheme } from "@/db/queries/schemes";
+import { getScheme, type SchemeView } from "@/db/queries/schemes";
 import type { SessionUser } from "@/db/queries/users";
 import { getZone } from "@/db/queries/zones";
 import { getZonePlan } from "@/db/queries/zone-plans";
@@ -23,6 +23,7 @@ import { MEMBER_STATUS_LABELS } from "@/lib/labels";
 import { CHECK_FIELDS, EDITABLE_STATUSES, memberPatchSchema, memberStateSchema, type MemberCreate, type MemberPatch } from "@/lib/validations/member";
 import { statusEditConflict } from "./member-lifecycle";
 import { deriveSlabLoad, type SlabLoadInfo } from "./slab-load";
+import { deriveBackpropLoad, type BackpropLoadInfo } from "./backprop-load";
 import { bearingRequest, checkSnapshot, runCheck, type CheckOutcome } from "./run-check";
 import { calculate, type Step } from "@/lib/engineering";
 import type { MemberBase } from "@/db/schema";
@@ -75,6 +76,7 @@ type Resolved = {
   scheme: Awaited<ReturnType<typeof getScheme>> | null;
   loadN: number;
   slab: SlabLoadInfo | null;
+  backprop: BackpropLoadInfo | null;
 };
 
 type MemberState = {
@@ -82,8 +84,9 @@ type MemberState = {
   schemeId?: string | null;
   memberTypeId: string;
   extensionMm: number;
-  loadSource: "direct" | "slab";
+  loadSource: "direct" | "slab" | "backprop";
   loadN?: number;
+  level?: number | null;
   spacingXMm?: number | null;
   spacingYMm?: number | null;
 };
@@ -106,6 +109,7 @@ async function resolveRefs(site: SiteForCheck, v: MemberState, tx: DbOrTx, curre
   }
   let loadN = v.loadN ?? NaN;
   let slab: SlabLoadInfo | null = null;
+  let backprop: BackpropLoadInfo | null = null;
   if (v.loadSource === "slab" && scheme) {
     const derived = deriveSlabLoad(scheme, v.spacingXMm ?? NaN, v.spacingYMm ?? NaN);
     if (!derived.ok) Object.assign(errors, derived.fields);
@@ -114,8 +118,18 @@ async function resolveRefs(site: SiteForCheck, v: MemberState, tx: DbOrTx, curre
       loadN = derived.info.loadPerMemberN;
     }
   }
+  if (v.loadSource === "backprop" && scheme) {
+    const derived = deriveBackpropLoad(scheme, v.level ?? NaN, v.spacingXMm ?? NaN, v.spacingYMm ?? NaN);
+    if (!derived.ok) {
+      // A scheme-side reason (no back-propping, no slab) is said against the load source the member chose.
+      for (const [k, m] of Object.entries(derived.fields)) errors[k.startsWith("backprop") ? "loadSource" : k] ??= m;
+    } else {
+      backprop = derived.info;
+      loadN = derived.info.loadPerMemberN;
+    }
+  }
   if (Object.keys(errors).length) throw new ValidationError(errors);
-  return { type: type!, zone, scheme, loadN, slab };
+  return { type: type!, zone, scheme, loadN, slab, backprop };
 }
 
 /**
@@ -131,8 +145,8 @@ async function planColumns(args: { siteId: string; zoneId: string | null; positi
   return { planX: position.x, planY: position.y };
 }
 
-function checkRow(outcome: CheckOutcome, slab: SlabLoadInfo | null) {
-  return checkSnapshot(outcome, slab ? { slabLoad: slab } : undefined);
+function checkRow(outcome: CheckOutcome, slab: SlabLoadInfo | null, backprop: BackpropLoadInfo | null = null) {
+  return checkSnapshot(outcome, slab ? { slabLoad: slab } : backprop ? { backpropLoad: backprop } : undefined);
 }
 
 /** What an audit row keeps of a member: its fields, without the bookkeeping timestamps. */
@@ -200,6 +214,7 @@ export async function createMember(args: {
           spacingXMm: input.spacingXMm ?? null,
           spacingYMm: input.spacingYMm ?? null,
           loadSource: input.loadSource,
+          level: input.loadSource === "backprop" ? (input.level ?? null) : null,
           loadN: ref.loadN,
           status: input.submit ? "submitted" : "draft",
           notes: input.notes ?? null,
@@ -219,7 +234,7 @@ export async function createMember(args: {
       if (isUniqueViolation(e)) throw new ValidationError({ tag: `${input.tag} is already on this site's register; use another tag.` });
       throw e;
     }
-    const check = await insertCheck({ memberId: member.id, reason: "logged", createdBy: user.id, ...checkRow(outcome, ref.slab) }, tx);
+    const check = await insertCheck({ memberId: member.id, reason: "logged", createdBy: user.id, ...checkRow(outcome, ref.slab, ref.backprop) }, tx);
     member = await updateMemberRow({ memberId: member.id, values: { latestCheckId: check.id } }, tx);
     const attached = await attachPhotos({ siteId: site.id, memberId: member.id, photoIds }, tx);
     if (attached !== photoIds.length) throw new ValidationError({ photoIds: "One of the photos was attached elsewhere meanwhile; upload it again." });
@@ -327,6 +342,8 @@ export async function updateMember(args: {
       extensionMm: patch.extensionMm ?? before.extensionMm,
       endConditions: patch.endConditions ?? before.endConditions,
       loadSource: patch.loadSource ?? before.loadSource,
+      // A level belongs to a load from back-propping: leaving that source leaves the level too.
+      level: patch.level !== undefined ? patch.level : (patch.loadSource ?? before.loadSource) === "backprop" ? before.level : null,
       loadN: patch.loadN ?? before.loadN,
       spacingXMm: patch.spacingXMm !== undefined ? patch.spacingXMm : before.spacingXMm,
       spacingYMm: patch.spacingYMm !== undefined ? patch.spacingYMm : before.spacingYMm,
@@ -370,6 +387,7 @@ export async function updateMember(args: {
       extensionMm: v.extensionMm,
       endConditions: v.endConditions,
       loadSource: v.loadSource,
+      level: v.level ?? null,
       loadN: ref.loadN,
       spacingXMm: v.spacingXMm ?? null,
       spacingYMm: v.spacingYMm ?? null,
@@ -391,7 +409,7 @@ export async function updateMember(args: {
       values.status = patch.status;
     }
     if (outcome) {
-      const row = await insertCheck({ memberId, reason: "edited", createdBy: user.id, ...checkRow(outcome, ref.slab) }, tx);
+      const row = await insertCheck({ memberId, reason: "edited", createdBy: user.id, ...checkRow(outcome, ref.slab, ref.backprop) }, tx);
       Object.assign(values, { latestCheckId: row.id, capacityN: row.capacityN, utilisation: row.utilisation, checkPass: row.pass });
       check = checkView(row);
     }
@@ -509,4 +527,105 @@ export async function recheckMember(args: {
     tx,
   );
   return { before, after, outcome, check: checkView(row) };
+}
+
+/** A scheme's fields that a member's derived load depends on: a change to any re-checks those members. */
+export const SCHEME_LOAD_FIELDS = ["slabThicknessMm", "concreteDensityKnM3", "formworkKnM2", "constructionKnM2", "backprop"] as const;
+
+const listTags = (tags: string[]) => (tags.length > 5 ? `${tags.slice(0, 5).join(", ")} and ${tags.length - 5} more` : tags.join(", "));
+
+/**
+ * Re-derives the load of every member that takes it from the scheme (after the scheme changed) and
+ * re-checks it inside the caller's transaction: new load, a new check with its working and the
+ * reason, the member's latest result, and one audit row per member saying which scheme changed.
+ * A scheme that can no longer give those loads is refused (422, nothing stored). A member that now
+ * fails is picked up by the overload sweep like any other failing check.
+ */
+export async function recheckMembersOfScheme(args: {
+  user: SessionUser;
+  site: SiteForCheck;
+  scheme: SchemeView;
+  changed: string[];
+  tx: Tx;
+}): Promise<{ rechecked: number }> {
+  const { user, site, scheme, changed, tx } = args;
+  const reason = "scheme changed";
+  // A slab load depends on the slab's four fields; a back-propped load on the slab's weight and the back-propping.
+  const slabChanged = changed.some((k) => k !== "backprop");
+  const bpChanged = changed.some((k) => k === "backprop" || k === "slabThicknessMm" || k === "concreteDensityKnM3");
+  const sources = [...(slabChanged ? (["slab"] as const) : []), ...(bpChanged ? (["backprop"] as const) : [])];
+  if (sources.length === 0) return { rechecked: 0 };
+  const rows = await listMembersOfSchemeForCheck({ schemeId: scheme.id, loadSources: sources }, tx);
+  if (rows.length === 0) return { rechecked: 0 };
+  type Derived = { ok: true; info: SlabLoadInfo | BackpropLoadInfo } | { ok: false; fields: FieldErrors };
+  const derived = rows.map((m) => ({
+    m,
+    d: (m.loadSource === "backprop"
+      ? deriveBackpropLoad(scheme, m.level ?? NaN, m.spacingXMm ?? NaN, m.spacingYMm ?? NaN)
+      : deriveSlabLoad(scheme, m.spacingXMm ?? NaN, m.spacingYMm ?? NaN)) as Derived,
+  }));
+  const refused = derived.filter((x) => !x.d.ok);
+  if (refused.length) {
+    const fields: FieldErrors = {};
+    const say = (field: string, group: typeof refused, what: string, fix: string) => {
+      if (!group.length || fields[field]) return;
+      const many = group.length === 1 ? "takes its" : "take their";
+      fields[field] = `${listTags(group.map((x) => x.m.tag))} ${many} load from this scheme's ${what}: ${fix}`;
+    };
+    const bp = refused.filter((x) => x.m.loadSource === "backprop");
+    const slab = refused.filter((x) => x.m.loadSource !== "backprop");
+    const firstReason = (g: typeof refused) => Object.values((g[0]?.d as { fields?: FieldErrors } | undefined)?.fields ?? {})[0] ?? "the load cannot be derived.";
+    if (scheme.slabThicknessMm == null) say("slabThicknessMm", refused, "slab", "keep the slab thickness, or give those members their working load directly first.");
+    else {
+      say("slabThicknessMm", slab, "slab", firstReason(slab));
+      if (!scheme.backprop) say("backprop", bp, "back-propping", "keep the back-propping, or give those members another load source first.");
+      else if (bp.some((x) => (x.m.level ?? 0) > scheme.backprop!.shoredLevels))
+        say("backprop.shoredLevels", bp, "back-propping", `they stand at levels up to ${Math.max(...bp.map((x) => x.m.level ?? 0))}; keep at least that many levels, or move them to another level first.`);
+      else say("backprop", bp, "back-propping", firstReason(bp));
+    }
+    throw new ValidationError(fields);
+  }
+  const types = new Map<string, MemberType>();
+  for (const id of new Set(rows.map((m) => m.memberTypeId))) {
+    const t = await getMemberType({ organisationId: site.organisationId, memberTypeId: id, includeArchived: true }, tx);
+    if (!t) throw new NotFoundError("A member's type");
+    types.set(id, t);
+  }
+  for (const { m, d } of derived) {
+    const info = (d as { ok: true; info: SlabLoadInfo | BackpropLoadInfo }).info;
+    const slab = { loadPerMemberN: info.loadPerMemberN };
+    const outcome = runCheck(
+      types.get(m.memberTypeId)!,
+      { extensionMm: m.extensionMm, endConditions: m.endConditions, loadN: slab.loadPerMemberN, outOfPlumbDeg: m.outOfPlumbDeg, base: m.base },
+      site,
+    );
+    const row = await insertCheck(
+      {
+        memberId: m.id, reason, createdBy: user.id,
+        ...(m.loadSource === "backprop" ? checkRow(outcome, null, info as BackpropLoadInfo) : checkRow(outcome, info as SlabLoadInfo)),
+      },
+      tx,
+    );
+    await updateMemberRow(
+      { memberId: m.id, values: { loadN: slab.loadPerMemberN, latestCheckId: row.id, capacityN: row.capacityN, utilisation: row.utilisation, checkPass: row.pass } },
+      tx,
+    );
+    await recordAudit(
+      {
+        organisationId: site.organisationId,
+        siteId: site.id,
+        actorId: user.id,
+        action: "member.rechecked",
+        entityType: "member",
+        entityId: m.id,
+        before: { loadN: m.loadN, latestCheckId: m.latestCheckId, capacityN: m.capacityN, utilisation: m.utilisation, checkPass: m.checkPass },
+        after: {
+          loadN: slab.loadPerMemberN, latestCheckId: row.id, capacityN: row.capacityN, utilisation: row.utilisation, checkPass: row.pass,
+          reason, schemeId: scheme.id, schemeReference: scheme.reference, schemeFields: changed,
+        },
+      },
+      tx,
+    );
+  }
+  return { rechecked: rows.length };
 }

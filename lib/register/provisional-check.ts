@@ -5,12 +5,13 @@
 import type { CheckSite, CheckType } from "./check-request";
 import { checkView, type CheckView } from "./check-view";
 import { checkSnapshot, runCheck } from "./run-check";
+import { deriveBackpropLoad, type BackpropScheme } from "./backprop-load";
 import { deriveSlabLoad, type SlabScheme } from "./slab-load";
 
 export type OfflineCheckData = {
   site: CheckSite;
   types: (CheckType & { id: string })[];
-  schemes: (SlabScheme & { id: string })[];
+  schemes: (SlabScheme & { backprop?: BackpropScheme["backprop"]; id: string })[];
 };
 
 type MemberInput = {
@@ -22,6 +23,7 @@ type MemberInput = {
   schemeId?: unknown;
   spacingXMm?: unknown;
   spacingYMm?: unknown;
+  level?: unknown;
 };
 
 const num = (v: unknown) => (typeof v === "number" && Number.isFinite(v) ? v : null);
@@ -38,6 +40,16 @@ export function provisionalCheck(input: MemberInput, data: OfflineCheckData): { 
     const y = num(input.spacingYMm);
     if (!scheme || x === null || y === null) return null;
     const derived = deriveSlabLoad(scheme, x, y);
+    if (!derived.ok) return null;
+    loadN = derived.info.loadPerMemberN;
+  }
+  if (input.loadSource === "backprop") {
+    const scheme = data.schemes.find((s) => s.id === input.schemeId);
+    const x = num(input.spacingXMm);
+    const y = num(input.spacingYMm);
+    const level = num(input.level);
+    if (!scheme || x === null || y === null || level === null) return null;
+    const derived = deriveBackpropLoad({ ...scheme, backprop: scheme.backprop ?? null }, level, x, y);
     if (!derived.ok) return null;
     loadN = derived.info.loadPerMemberN;
   }

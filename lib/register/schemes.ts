@@ -14,6 +14,7 @@ import type { SessionUser } from "@/db/queries/users";
 import type { ResourceOf, Site } from "@/lib/api/resources";
 import { getZoneByName, insertZone, updateZone as updateZoneRow, type ZoneView } from "@/db/queries/zones";
 import { fieldErrorsFromZod, ValidationError } from "@/lib/errors";
+import { recheckMembersOfScheme, SCHEME_LOAD_FIELDS, type SiteForCheck } from "./members";
 import { deleteObject, getObject, headObject, presignGet, presignPut } from "@/lib/storage";
 import { schemeFilePresignSchema, type SchemeFileComplete, type SchemeParsed } from "@/lib/validations/scheme";
 import type { zoneSchema } from "@/lib/validations/zone";
@@ -42,26 +43,45 @@ export async function editZone({ user, site, zone: before, input: v }: { user: S
   });
 }
 
+/** Back-propping loads are multiples of the slab's self-weight: a scheme with back-propping needs its slab (checked on the stored row, so a PATCH that keeps either is judged as a whole). */
+function assertBackpropHasSlab(scheme: Pick<SchemeView, "backprop" | "slabThicknessMm">) {
+  if (scheme.backprop && scheme.slabThicknessMm == null) {
+    throw new ValidationError({ backprop: "Back-propping loads are multiples of the slab's self-weight: give the slab thickness (mm) with the back-propping." });
+  }
+}
+
 export async function createScheme({ user, site, input: v }: { user: SessionUser; site: OnSite; input: SchemeParsed }) {
   return transaction(async (tx) => {
     if (await getSchemeByReference({ siteId: site.id, reference: v.reference }, tx)) {
       throw new ValidationError({ reference: `This site already has a scheme ${v.reference}.` });
     }
     const scheme = await insertScheme({ ...v, siteId: site.id, createdBy: user.id }, tx);
+    assertBackpropHasSlab(scheme);
     await recordAudit({ organisationId: site.organisationId, siteId: site.id, actorId: user.id, action: "scheme.created", entityType: "scheme", entityId: scheme.id, after: v }, tx);
     return { scheme };
   });
 }
 
-export async function editScheme({ user, site, scheme: before, input: v }: { user: SessionUser; site: OnSite; scheme: SchemeView; input: SchemeParsed }) {
+/**
+ * Edits a scheme. A change to what a derived load depends on (the slab) re-derives and re-checks
+ * every member that takes its load from the scheme, in the same transaction: the answer says how
+ * many (`rechecked`).
+ */
+export async function editScheme({ user, site, scheme: before, input: v }: { user: SessionUser; site: SiteForCheck; scheme: SchemeView; input: SchemeParsed }) {
   const schemeId = before.id;
   return transaction(async (tx) => {
     const clash = await getSchemeByReference({ siteId: site.id, reference: v.reference }, tx);
     if (clash && clash.id !== schemeId) throw new ValidationError({ reference: `This site already has a scheme ${v.reference}.` });
     const scheme = (await updateSchemeRow({ siteId: site.id, schemeId, values: v }, tx))!;
+    assertBackpropHasSlab(scheme);
+    const changed = SCHEME_LOAD_FIELDS.filter((k) => JSON.stringify(before[k] ?? null) !== JSON.stringify(scheme[k] ?? null));
+    const { rechecked } = changed.length ? await recheckMembersOfScheme({ user, site, scheme, changed, tx }) : { rechecked: 0 };
     const { createdAt: _c, updatedAt: _u, ...b } = before;
-    await recordAudit({ organisationId: site.organisationId, siteId: site.id, actorId: user.id, action: "scheme.updated", entityType: "scheme", entityId: schemeId, before: b, after: v }, tx);
-    return { scheme };
+    await recordAudit(
+      { organisationId: site.organisationId, siteId: site.id, actorId: user.id, action: "scheme.updated", entityType: "scheme", entityId: schemeId, before: b, after: { ...v, rechecked } },
+      tx,
+    );
+    return { scheme, rechecked };
   });
 }
 

@@ -29,7 +29,7 @@ export const endConditionSchema = z.enum(endCondition.enumValues, {
   error: () => `End conditions must be one of: ${endCondition.enumValues.join(", ")}.`,
 });
 export const loadSourceSchema = z.enum(loadSource.enumValues, {
-  error: () => "Load must be given directly (direct) or derived from the scheme's slab (slab).",
+  error: () => "Load must be given directly (direct), derived from the scheme's slab (slab) or from the scheme's back-propping (backprop).",
 });
 
 export const tagSchema = z
@@ -74,23 +74,40 @@ const base = {
   endConditions: endConditionSchema.default("pinned-pinned"),
   loadSource: loadSourceSchema.default("direct"),
   loadN: positive("working load", "N", 50_000_000).optional(),
+  /** Level of props for a load from back-propping: 1 = right under the slab being cast. */
+  level: z
+    .number({ error: () => "The level of props must be a whole number from 1 (right under the slab being cast) to 6." })
+    .int("The level of props must be a whole number from 1 (right under the slab being cast) to 6.")
+    .min(1, "The level of props is 1 (right under the slab being cast) or more.")
+    .max(6, "The level of props is at most 6.")
+    .nullable()
+    .optional(),
   spacingXMm: positive("as-built spacing X", "mm", 20_000).nullable().optional(),
   spacingYMm: positive("as-built spacing Y", "mm", 20_000).nullable().optional(),
   notes: z.string().trim().max(2000, "Notes have at most 2000 characters.").nullable().optional(),
   base: memberBaseSchema.nullable().optional(),
 };
 
-type LoadShape = { loadSource?: "direct" | "slab"; loadN?: number; spacingXMm?: number | null; spacingYMm?: number | null; schemeId?: string | null };
+type LoadShape = { loadSource?: "direct" | "slab" | "backprop"; loadN?: number; spacingXMm?: number | null; spacingYMm?: number | null; schemeId?: string | null; level?: number | null };
 
-/** Cross-field rules: a direct load needs loadN; a slab-derived load needs a scheme and both spacings. */
+/**
+ * Cross-field rules: a direct load needs loadN; a slab-derived load needs a scheme and both
+ * spacings; a load from back-propping needs those and the member's level of props.
+ */
 function loadRules(v: LoadShape, ctx: z.RefinementCtx) {
-  if ((v.loadSource ?? "direct") === "direct") {
+  const source = v.loadSource ?? "direct";
+  if (source !== "backprop" && v.level != null)
+    ctx.addIssue({ code: "custom", path: ["level"], message: "A level of props applies only to a load from the scheme's back-propping; choose that load source or leave the level out." });
+  if (source === "direct") {
     if (v.loadN === undefined) ctx.addIssue({ code: "custom", path: ["loadN"], message: "Enter the working load the member carries, or derive it from the scheme's slab." });
     return;
   }
-  if (!v.schemeId) ctx.addIssue({ code: "custom", path: ["schemeId"], message: "Choose the scheme whose slab this member carries to derive its load." });
-  if (v.spacingXMm == null) ctx.addIssue({ code: "custom", path: ["spacingXMm"], message: "Enter the as-built spacing X (mm) to derive the load from the slab." });
-  if (v.spacingYMm == null) ctx.addIssue({ code: "custom", path: ["spacingYMm"], message: "Enter the as-built spacing Y (mm) to derive the load from the slab." });
+  const from = source === "slab" ? "the slab" : "the back-propping";
+  if (!v.schemeId) ctx.addIssue({ code: "custom", path: ["schemeId"], message: source === "slab" ? "Choose the scheme whose slab this member carries to derive its load." : "Choose the back-propped scheme this member belongs to, to derive its load." });
+  if (v.spacingXMm == null) ctx.addIssue({ code: "custom", path: ["spacingXMm"], message: `Enter the as-built spacing X (mm) to derive the load from ${from}.` });
+  if (v.spacingYMm == null) ctx.addIssue({ code: "custom", path: ["spacingYMm"], message: `Enter the as-built spacing Y (mm) to derive the load from ${from}.` });
+  if (source === "backprop" && v.level == null)
+    ctx.addIssue({ code: "custom", path: ["level"], message: "Choose the member's level of props: 1 is right under the slab being cast, 2 the level below, and so on." });
 }
 
 export const memberCreateSchema = z
@@ -124,6 +141,7 @@ export const memberPatchSchema = z
     endConditions: endConditionSchema,
     loadSource: loadSourceSchema,
     loadN: base.loadN,
+    level: base.level,
     spacingXMm: base.spacingXMm,
     spacingYMm: base.spacingYMm,
     notes: base.notes,
@@ -142,7 +160,7 @@ export const memberPatchSchema = z
 export type MemberPatch = z.output<typeof memberPatchSchema>;
 
 /** Fields whose change alters the capacity check. */
-export const CHECK_FIELDS = ["extensionMm", "loadN", "loadSource", "spacingXMm", "spacingYMm", "endConditions", "memberTypeId", "schemeId", "base"] as const;
+export const CHECK_FIELDS = ["extensionMm", "loadN", "loadSource", "level", "spacingXMm", "spacingYMm", "endConditions", "memberTypeId", "schemeId", "base"] as const;
 
 /** The whole member after a patch, re-validated with the same rules as a new one. */
 export const memberStateSchema = z.object({ ...base }).superRefine(loadRules);

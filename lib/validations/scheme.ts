@@ -25,6 +25,44 @@ const date = (label: string) =>
       return d;
     });
 
+const kPa = (label: string) =>
+  z
+    .number({ error: () => `The ${label} must be a number (kN/m²).` })
+    .refine(Number.isFinite, `The ${label} must be a finite number.`)
+    .refine((v) => v >= 0, `The ${label} cannot be negative.`)
+    .refine((v) => v <= 50, `The ${label} must be at most 50 kN/m²; check the unit.`)
+    .optional();
+
+/**
+ * Back-propping through the casting cycle (Grundy & Kabaila 1963): how many levels of props are in
+ * use at once, and the formwork and construction loads at casting (kN/m²). The slab's self-weight
+ * is the scheme's own slab (thickness × density).
+ */
+export const schemeBackpropSchema = z
+  .object(
+    {
+      shoredLevels: z
+        .number({ error: () => "Give the number of levels of props in use at once (1 to 6)." })
+        .int("The number of levels of props is a whole number from 1 to 6.")
+        .min(1, "The number of levels of props is from 1 to 6.")
+        .max(6, "The number of levels of props is from 1 to 6 (the simplified method is set up here for 1 to 6)."),
+      formworkKPa: kPa("formwork self-weight at casting"),
+      constructionKPa: kPa("construction load while casting"),
+      cycles: z
+        .number({ error: () => "The number of casting cycles must be a whole number." })
+        .int("The number of casting cycles must be a whole number.")
+        .min(2, "Follow at least 2 casting cycles.")
+        .max(40, "Follow at most 40 casting cycles.")
+        .optional(),
+    },
+    { error: () => "Back-propping must give the number of levels of props in use at once (1 to 6), and may give the formwork and construction loads (kN/m²)." },
+  )
+  .strict()
+  .superRefine((v, ctx) => {
+    if (v.cycles !== undefined && v.cycles < v.shoredLevels + 1)
+      ctx.addIssue({ code: "custom", path: ["cycles"], message: `With ${v.shoredLevels} levels of props follow at least ${v.shoredLevels + 1} casting cycles.` });
+  });
+
 export const SCHEME_CATEGORIES = [
   { value: 0, label: "Category 0 — standard solution, site issues only" },
   { value: 1, label: "Category 1 — simple design, checked within the design team" },
@@ -53,6 +91,7 @@ export const schemeSchema = z
     concreteDensityKnM3: optionalNumber("concrete density", "kN/m³", 60),
     formworkKnM2: optionalNumber("formwork self-weight", "kN/m²", 50, 0, true),
     constructionKnM2: optionalNumber("construction operations load", "kN/m²", 50, 0, true),
+    backprop: schemeBackpropSchema.nullable().optional(),
     validFrom: date("Valid from"),
     validUntil: date("Valid until"),
   })

@@ -29,7 +29,7 @@ export function MemberEditForm({
   unitSystem: UnitSystem;
   member: {
     tag: string; zoneId: string | null; schemeId: string | null; memberTypeId: string; extensionMm: number; endConditions: string;
-    loadSource: "direct" | "slab"; loadN: number; spacingXMm: number | null; spacingYMm: number | null; notes: string | null; status: string;
+    loadSource: "direct" | "slab" | "backprop"; level: number | null; loadN: number; spacingXMm: number | null; spacingYMm: number | null; notes: string | null; status: string;
     planX: number | null; planY: number | null;
     /** The version this form was loaded with: a newer one on the server is refused (409), not overwritten. */
     version: number;
@@ -49,6 +49,7 @@ export function MemberEditForm({
     endConditions: member.endConditions,
     loadSource: member.loadSource,
     load: forceText(member.loadN, unitSystem),
+    level: member.level != null ? String(member.level) : "",
     spacingX: lengthText(member.spacingXMm, unitSystem),
     spacingY: lengthText(member.spacingYMm, unitSystem),
     notes: member.notes ?? "",

@@ -35,6 +35,7 @@ const CHECK_REASONS: Record<string, string> = {
   edited: "After an edit",
   imported: "When imported",
   "plumb reading": "After a plumb reading at an inspection",
+  "scheme changed": "After its scheme changed",
 };
 
 /** An inspection's plumb reading in words: the angle used, and the offset as read. */
@@ -127,7 +128,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
       zones: zones.map((z) => ({ id: z.id, name: z.name })),
       schemes: schemes.map((s) => ({
         id: s.id, reference: s.reference, title: s.title, slabThicknessMm: s.slabThicknessMm, concreteDensityKnM3: s.concreteDensityKnM3,
-        formworkKnM2: s.formworkKnM2, constructionKnM2: s.constructionKnM2, designSpacingXMm: s.designSpacingXMm, designSpacingYMm: s.designSpacingYMm,
+        formworkKnM2: s.formworkKnM2, constructionKnM2: s.constructionKnM2, backprop: s.backprop, designSpacingXMm: s.designSpacingXMm, designSpacingYMm: s.designSpacingYMm,
       })),
       types: types.map((t) => ({ id: t.id, name: t.name, kind: t.kind, minExtensionMm: t.minExtensionMm, maxExtensionMm: t.maxExtensionMm })),
     };
@@ -197,7 +198,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
             ["Scheme", member.schemeReference ? `${member.schemeReference} — ${member.schemeTitle}` : "—"],
             ["Measured extension", len(member.extensionMm)],
             ["End conditions", endConditionInfo(member.endConditions).label],
-            ["Working load", `${formatForce(member.loadN, forceUnit)}${member.loadSource === "slab" ? " (derived from the scheme's slab)" : ""}`],
+            ["Working load", `${formatForce(member.loadN, forceUnit)}${member.loadSource === "slab" ? " (derived from the scheme's slab)" : member.loadSource === "backprop" ? ` (from the scheme's back-propping, level ${member.level ?? "?"} of props: 1 = right under the slab being cast)` : ""}`],
             ["As-built spacing", member.spacingXMm != null && member.spacingYMm != null ? `${len(member.spacingXMm)} × ${len(member.spacingYMm)}` : "—"],
             ["Out of plumb (latest reading)", member.outOfPlumbDeg == null ? "No reading: checked standing plumb" : `${Number(member.outOfPlumbDeg.toFixed(2))}° — checked at this lean`],
             ["Base", baseText(member.base, len)],
@@ -295,7 +296,7 @@ export default async function MemberPage({ params }: { params: Promise<{ siteId:
             unitSystem={site.unitSystem}
             member={{
               tag: member.tag, zoneId: member.zoneId, schemeId: member.schemeId, memberTypeId: member.memberTypeId, extensionMm: member.extensionMm,
-              endConditions: member.endConditions, loadSource: member.loadSource, loadN: member.loadN, spacingXMm: member.spacingXMm, spacingYMm: member.spacingYMm,
+              endConditions: member.endConditions, loadSource: member.loadSource, level: member.level, loadN: member.loadN, spacingXMm: member.spacingXMm, spacingYMm: member.spacingYMm,
               notes: member.notes, status: member.status, version: member.version, planX: member.planX, planY: member.planY,
             }}
             {...editProps}

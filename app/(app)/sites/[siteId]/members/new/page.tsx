@@ -29,7 +29,7 @@ export default async function LogMemberPage({ params, searchParams }: { params: 
         zones={zones.map((z) => ({ id: z.id, name: z.name }))}
         schemes={schemes.map((s) => ({
           id: s.id, reference: s.reference, title: s.title, slabThicknessMm: s.slabThicknessMm, concreteDensityKnM3: s.concreteDensityKnM3,
-          formworkKnM2: s.formworkKnM2, constructionKnM2: s.constructionKnM2, designSpacingXMm: s.designSpacingXMm, designSpacingYMm: s.designSpacingYMm,
+          formworkKnM2: s.formworkKnM2, constructionKnM2: s.constructionKnM2, backprop: s.backprop, designSpacingXMm: s.designSpacingXMm, designSpacingYMm: s.designSpacingYMm,
         }))}
         types={types.map((t) => ({ id: t.id, name: t.name, kind: t.kind, minExtensionMm: t.minExtensionMm, maxExtensionMm: t.maxExtensionMm }))}
         // The library and slab data with the page: a copy kept for a round checks a member with no signal.
@@ -38,6 +38,7 @@ export default async function LogMemberPage({ params, searchParams }: { params: 
           types: types.map((t) => ({ id: t.id, kind: t.kind, params: t.params as Record<string, unknown>, minExtensionMm: t.minExtensionMm, maxExtensionMm: t.maxExtensionMm })),
           schemes: schemes.map((s) => ({
             id: s.id, reference: s.reference, slabThicknessMm: s.slabThicknessMm, concreteDensityKnM3: s.concreteDensityKnM3, formworkKnM2: s.formworkKnM2, constructionKnM2: s.constructionKnM2,
+            backprop: s.backprop,
           })),
         }}
       />

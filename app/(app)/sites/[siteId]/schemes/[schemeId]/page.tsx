@@ -6,6 +6,7 @@ import { getScheme } from "@/db/queries/schemes";
 import { loadSitePage } from "@/lib/auth/site-page";
 import { isUuid } from "@/lib/authz";
 import { presignGet } from "@/lib/storage";
+import { BackpropLevels } from "../backprop-levels";
 import { SchemeFiles } from "../scheme-files";
 import { SchemeForm } from "../scheme-form";
 
@@ -37,8 +38,10 @@ export default async function SchemePage({ params }: { params: Promise<{ siteId:
     <div className="mx-auto flex max-w-2xl flex-col gap-4">
       <h1 className="text-2xl font-bold">{s.reference} — {s.title}</h1>
       <SchemeFiles siteId={site.id} schemeId={s.id} drawingUrl={drawingUrl} certificateUrl={certificateUrl} category={s.category} documents={documents} canEdit />
+      <BackpropLevels scheme={s} unitSystem={site.unitSystem} />
       <SchemeForm
         siteId={site.id}
+        unitSystem={site.unitSystem}
         existing={{ ...s, validFrom: s.validFrom?.toISOString() ?? null, validUntil: s.validUntil?.toISOString() ?? null }}
       />
     </div>

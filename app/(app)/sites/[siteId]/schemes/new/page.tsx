@@ -12,7 +12,7 @@ export default async function NewSchemePage({ params }: { params: Promise<{ site
   return (
     <div className="mx-auto flex max-w-2xl flex-col gap-4">
       <h1 className="text-2xl font-bold">New scheme</h1>
-      <SchemeForm siteId={site.id} defaultDesigner={roles.includes("designer") ? user.name : ""} />
+      <SchemeForm siteId={site.id} unitSystem={site.unitSystem} defaultDesigner={roles.includes("designer") ? user.name : ""} />
     </div>
   );
 }
