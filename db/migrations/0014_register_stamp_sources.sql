@@ -2,28 +2,14 @@
 -- reference, the type's name and kind, and how many photos are ready. A change to any of those
 -- gives the sites it shows on a new member stamp too (members_stamp_bump, 0010), so a page or
 -- count kept under the old stamp (db/queries/member-list.ts) is never served after it.
-CREATE OR REPLACE FUNCTION register_stamp_site_row_changed() RETURNS trigger AS $$
-BEGIN
-  IF TG_OP = 'DELETE' THEN
-    PERFORM members_stamp_bump(OLD.site_id);
-  ELSE
-    PERFORM members_stamp_bump(NEW.site_id);
-    IF TG_OP = 'UPDATE' AND OLD.site_id <> NEW.site_id THEN
-      PERFORM members_stamp_bump(OLD.site_id);
-    END IF;
-  END IF;
-  RETURN NULL;
-END;
-$$ LANGUAGE plpgsql;
---> statement-breakpoint
 CREATE CONSTRAINT TRIGGER zones_stamp_at_commit AFTER INSERT OR UPDATE OR DELETE ON zones
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION register_stamp_site_row_changed();
+  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION members_stamp_changed();
 --> statement-breakpoint
 CREATE CONSTRAINT TRIGGER schemes_stamp_at_commit AFTER INSERT OR UPDATE OR DELETE ON schemes
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION register_stamp_site_row_changed();
+  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION members_stamp_changed();
 --> statement-breakpoint
 CREATE CONSTRAINT TRIGGER photos_stamp_at_commit AFTER INSERT OR UPDATE OR DELETE ON photos
-  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION register_stamp_site_row_changed();
+  DEFERRABLE INITIALLY DEFERRED FOR EACH ROW EXECUTE FUNCTION members_stamp_changed();
 --> statement-breakpoint
 -- A member type belongs to the organisation: every one of its sites may show it.
 CREATE OR REPLACE FUNCTION register_stamp_type_changed() RETURNS trigger AS $$

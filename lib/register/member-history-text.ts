@@ -3,7 +3,7 @@
 // the page, the API and a test all get the same words.
 import { endConditionInfo } from "@/lib/engineering/effective-length";
 import type { EndCondition } from "@/lib/engineering/types";
-import { MEMBER_STATUS_LABELS } from "@/lib/labels";
+import { MEMBER_FIELD_LABELS, MEMBER_STATUS_LABELS } from "@/lib/labels";
 import { formatDate } from "@/lib/format-date";
 import { formatFeetInches, formatForce, formatLength } from "@/lib/units";
 
@@ -27,22 +27,6 @@ type Ctx = {
   inspections: { id: string; result: "pass" | "fail"; inspectedAt: Date }[];
 };
 
-const FIELD_LABELS: Record<string, string> = {
-  tag: "Tag",
-  zoneId: "Zone",
-  schemeId: "Scheme",
-  memberTypeId: "Member type",
-  extensionMm: "Measured extension",
-  endConditions: "End conditions",
-  loadSource: "Load",
-  loadN: "Working load",
-  level: "Level of props (1 = right under the slab being cast)",
-  spacingXMm: "As-built spacing X",
-  spacingYMm: "As-built spacing Y",
-  notes: "Notes",
-  status: "Status",
-  planPosition: "Place on the zone plan",
-};
 /** A scheme's fields that a derived load depends on, as a re-check after a scheme change names them. */
 const SCHEME_FIELD_LABELS: Record<string, string> = {
   slabThicknessMm: "slab thickness",
@@ -127,7 +111,7 @@ export function sentence(row: AuditRow, ctx: Ctx): { summary: string; details: s
       const details: string[] = [];
       for (const k of Object.keys(after)) {
         if (CHECK_KEYS.has(k)) continue;
-        const label = FIELD_LABELS[k] ?? "Another detail";
+        const label = MEMBER_FIELD_LABELS[k] ?? "Another detail";
         if (k === "notes" && after[k] == null) details.push("Notes removed.");
         else details.push(`${label} changed from ${valueText(k, before[k], ctx)} to ${valueText(k, after[k], ctx)}.`);
       }

@@ -4,30 +4,13 @@
 import { formatForceFor, formatLengthFor, type UnitSystem } from "@/lib/client/format";
 import { END_CONDITION_IDS, endConditionInfo } from "@/lib/engineering/effective-length";
 import type { EndCondition } from "@/lib/engineering/types";
-import { MEMBER_STATUS_LABELS } from "@/lib/labels";
+import { MEMBER_FIELD_LABELS, MEMBER_STATUS_LABELS } from "@/lib/labels";
 
 /** What the edit form knows that the request does not: the site's units and the names of its choices. */
 export type EditDisplay = { unitSystem: UnitSystem; names: Record<string, string> };
 
-const LABELS: Record<string, string> = {
-  tag: "Tag",
-  zoneId: "Zone",
-  schemeId: "Scheme",
-  memberTypeId: "Member type",
-  extensionMm: "Measured extension",
-  endConditions: "End conditions",
-  loadSource: "Load from",
-  loadN: "Working load",
-  spacingXMm: "As-built spacing X",
-  spacingYMm: "As-built spacing Y",
-  notes: "Notes",
-  status: "Status",
-  planPosition: "Place on the zone plan",
-  base: "Base",
-};
-
 export function editFieldLabel(key: string): string {
-  return LABELS[key] ?? key;
+  return MEMBER_FIELD_LABELS[key] ?? key;
 }
 
 /** The value of one edited field as a person reads it; `member` is the server's record for the plan place. */
