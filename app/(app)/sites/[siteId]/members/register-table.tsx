@@ -98,7 +98,12 @@ export function useRegisterColumns({ siteId, unitSystem, timeZone }: { siteId: s
           </span>
         ),
       },
-      { id: "scheme", header: "Scheme", enableSorting: false, cell: ({ row }) => row.original.scheme?.reference ?? "—" },
+      { id: "scheme", header: "Scheme", enableSorting: false, cell: ({ row }) => (
+          // Cut like the zone: a long reference must not push the desk's table sideways.
+          <span className="block max-w-24 truncate 2xl:max-w-36 print:max-w-none print:whitespace-normal" title={row.original.scheme?.reference}>
+            {row.original.scheme?.reference ?? "—"}
+          </span>
+        ) },
       { id: "photos", header: "Photos", enableSorting: false, meta: { numeric: true }, cell: ({ row }) => row.original.photoCount },
       { id: "updated", accessorFn: (r) => r.updatedAt, header: "Updated", cell: ({ row }) => (
           // The day over the time (the site's), so the full date fits the desk's 1366 px beside the other columns.
