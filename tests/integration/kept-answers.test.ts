@@ -1,5 +1,5 @@
 // What the server keeps in memory between requests must never be served once it is out of date:
-//  - register pages (db/queries/member-list.ts listMembersKept) are kept under the site's member
+//  - register pages (db/queries/member-list.ts listMembersJson) are kept under the site's member
 //    stamp, which a change to the members, or to the zone, scheme, type or photos a page shows,
 //    renews — here each change is made on another connection, as another process would;
 //  - sign-in answers (db/access-cache.ts) are dropped on every change to people, organisations,
