@@ -89,3 +89,30 @@ describe("presumptive bearing values cite the table only for values taken from i
     expect(SOILS["firm-clay"]).toMatchObject({ kPa: 75, source: "BS 8004:1986 Table 1", toConfirm: "value to be confirmed against BS 8004:1986 Table 1" });
   });
 });
+
+describe("axial force and weak-axis bending by EN 1993-1-1 §6.3.3 with the Annex A interaction factors (Class 3 column)", () => {
+  it("RHS 100 × 50 × 4 (square corners given), S355, 2 m pinned, 100 kN at 10 mm: Eq. 6.62 and Eq. 6.61, by hand", () => {
+    // A = 1136 mm², I_z = 473 658.7 mm⁴, I_y = 1 441 258.7 mm⁴ (by hand in sections.test.ts); W_el,z = 2I_z/50 = 18 946.3 mm³.
+    // N_cr,z = π²·210 000·I_z/2000² = 245 428 N, N_cr,y = 746 794 N; λ̄_z = 1.28186, λ̄_y = 0.73486; curve c (α 0.49, Table 6.2):
+    // χ_z = 0.39656, χ_y = 0.70301 (Eq. 6.49). M_Ed = 100 000 × 10 = 1.0 kN·m, equal end moments (ψ = 1).
+    // Annex A Table A.2 (from memory): C_mz,0 = 1 + 0.36 × 0.67 × 100/245.428 = 1.09828.
+    // Table A.1, Class 3: μ_z = (1 − 0.40745)/(1 − 0.39656 × 0.40745) = 0.70675, μ_y = (1 − 0.13391)/(1 − 0.70301 × 0.13391) = 0.95610;
+    // k_zz = 1.09828 × 0.70675/(1 − 0.40745) = 1.30994, k_yz = 1.09828 × 0.95610/(1 − 0.40745) = 1.77211.
+    // M_Rd = 18 946.3 × 355 = 6.7259 kN·m. Eq. 6.62: 100/(0.39656 × 1136 × 0.355) + 1.30994 × 1/6.7259 = 0.62529 + 0.19476 = 0.82005;
+    // Eq. 6.61: 100/(0.70301 × 403.28) + 1.77211/6.7259 = 0.35272 + 0.26348 = 0.61620. The larger governs.
+    const r = success(
+      calculate({ method: "out-of-plumb", lengthMm: 2000, section: { shape: "rhs", bMm: 100, hMm: 50, tMm: 4, cornerRadiusMm: 0 }, fyMpa: 355, formed: "cold-formed", loadN: 100000, eccentricityMm: 10 }),
+    );
+    expect(stepOf(r, "Σ")?.value).toBeCloseTo(0.82005, 4);
+    expect(stepOf(r, "Σ_y")?.value).toBeCloseTo(0.6162, 4);
+    expect(stepOf(r, "Σ")?.source).toBe("EN 1993-1-1 §6.3.3 Eq. 6.62");
+    expect(r.utilisation).toBeCloseTo(0.82005, 4);
+    expect(stepOf(r, "C_mz")?.toConfirm).toBe("value to be confirmed against EN 1993-1-1 Annex A Table A.2");
+  });
+
+  it("a member whose end may sway keeps C_m = 1.0 (no Table A.2 reduction or increase is claimed)", () => {
+    const r = success(calculate({ method: "out-of-plumb", lengthMm: 2000, ends: "fixed-free", section: { shape: "chs", dMm: 114.3, tMm: 5 }, fyMpa: 355, loadN: 20000, outOfPlumbDeg: 1 }));
+    expect(stepOf(r, "C_mz")?.value).toBe(1);
+    expect(stepOf(r, "C_mz")?.source).toBe("Common practice");
+  });
+});
