@@ -104,6 +104,15 @@ export function formToRequest(f: CalculatorForm): Built {
     set("selfWeightNPerM", f.selfWeight, lineLoad);
   }
   if (f.method === "base-bearing") {
+    // A leaning prop: its angle, or the offset of its head over its base with its length.
+    set("outOfPlumbDeg", f.plumbDeg, numberOf);
+    set("outOfPlumbMm", f.plumbOffset, dim);
+    set("frictionCoefficient", f.friction, numberOf);
+    if (f.length.trim() !== "") {
+      const len = parseLength(f.length, us ? "in" : "mm");
+      if (len.ok) r.lengthMm = len.value;
+      else fieldErrors.length = len.message;
+    }
     set("basePlateBMm", f.basePlateB, dim);
     set("basePlateLMm", f.basePlateL, dim);
     set("solePlateBMm", f.solePlateB, dim);
@@ -214,6 +223,7 @@ const PATH_TO_FIELD: Record<string, keyof CalculatorForm> = {
   solePlateLMm: "solePlateL",
   solePlateTMm: "solePlateT",
   allowablePressureKPa: "allowablePressure",
+  frictionCoefficient: "friction",
   soil: "soil",
   slabEffectiveDepthMm: "slabEffDepth",
   slabDepthMm: "slabEffDepth",

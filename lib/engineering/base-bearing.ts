@@ -2,7 +2,11 @@
 // or under a timber sole plate that spreads it, against an allowable bearing
 // pressure (typed, or a presumptive value for a few common grounds); and, for a
 // back-prop standing on a slab, punching of that slab (EN 1992-1-1 §6.4 or
-// ACI 318-19 §22.6).
+// ACI 318-19 §22.6). A prop leaning by θ (measured, or from the offset of its
+// head over its length) brings its axial force N to the base as V = N·cos θ
+// down and H = N·sin θ sideways: H is shown and must be taken by the base's
+// fixing or by friction (checked only with a friction coefficient the user
+// gives; no coefficient is assumed).
 
 import { fieldError, fmt, step } from "./steps";
 import type { CalculationRequest, CheckPart, FieldError, MethodOutcome, SoilId, SourceRef, Step } from "./types";
@@ -20,7 +24,8 @@ export const SOILS: Record<SoilId, { label: string; kPa: number } & SourceRef> =
   "stiff-clay": { label: "Stiff clay", kPa: 150, ...BS8004, note: "stiff clay 150–300 kPa, lower value" },
   "loose-sand": { label: "Loose sand", kPa: 50, source: "Common practice", note: "BS 8004:1986 Table 1 'loose sand', < 100 kPa" },
   "medium-sand": { label: "Medium dense sand", kPa: 100, ...BS8004, note: "medium dense sand 100–300 kPa, lower value" },
-  "dense-gravel": { label: "Dense gravel or dense sand and gravel", kPa: 200, ...BS8004, note: "dense gravel > 600 kPa; 200 kPa used, common practice" },
+  // 200 kPa is not a value of the table (it gives more than 600 kPa for dense gravel), so it is cited as the rule of thumb it is.
+  "dense-gravel": { label: "Dense gravel or dense sand and gravel", kPa: 200, source: "Common practice", note: "well below BS 8004:1986 Table 1 'dense gravel', > 600 kPa" },
   hardcore: { label: "Well-compacted hardcore", kPa: 100, source: "Common practice", note: "compacted granular fill" },
 };
 
@@ -47,6 +52,50 @@ export function aci318PunchingStress(a: number, b: number, dMm: number, fcMpa: n
   return { b0, vc, lambdaS };
 }
 
+/**
+ * The lean of a prop standing out of plumb, from a measured angle or from the offset of its head
+ * over its base with its length. The load on the base is the prop's axial force N; leaning by θ it
+ * has a vertical part V = N·cos θ and a horizontal part H = N·sin θ at the base.
+ */
+function leanOf(req: CalculationRequest): { ok: true; given: boolean; thetaRad: number; steps: Step[] } | { ok: false; errors: FieldError[] } {
+  const N = req.loadN ?? 0;
+  if (req.outOfPlumbDeg === undefined && req.outOfPlumbMm === undefined) {
+    if (req.frictionCoefficient !== undefined) {
+      return { ok: false, errors: [fieldError("frictionCoefficient", "A friction coefficient is used only for a prop out of plumb: give its lean (an angle, or the offset of its head over its base with its length), or leave the coefficient out.")] };
+    }
+    return { ok: true, given: false, thetaRad: 0, steps: [] };
+  }
+  if (req.outOfPlumbDeg !== undefined && req.outOfPlumbMm !== undefined) {
+    return { ok: false, errors: [fieldError("outOfPlumbMm", "Give the lean either as an angle or as an offset of the head over the base, not both.")] };
+  }
+  const steps: Step[] = [];
+  let theta: number;
+  if (req.outOfPlumbMm !== undefined) {
+    const L = (req as Partial<CalculationRequest>).lengthMm;
+    if (L === undefined) {
+      return { ok: false, errors: [fieldError("lengthMm", "Give the prop's length in mm: the offset of its head over its base is turned into an angle with it.")] };
+    }
+    if (req.outOfPlumbMm >= L) {
+      return { ok: false, errors: [fieldError("outOfPlumbMm", `An offset of ${fmt(req.outOfPlumbMm)} mm cannot be as large as the prop's length ${fmt(L)} mm.`)] };
+    }
+    theta = Math.asin(req.outOfPlumbMm / L);
+    steps.push(
+      step("Prop length", "L", L, "mm", "User input"),
+      step("Offset of the head over the base (measured)", "Δ", req.outOfPlumbMm, "mm", "User input"),
+      step("Angle out of plumb θ = asin(Δ/L)", "θ", (theta * 180) / Math.PI, "°", "Geometry"),
+    );
+  } else {
+    const deg = req.outOfPlumbDeg as number;
+    theta = (deg * Math.PI) / 180;
+    steps.push(step("Angle out of plumb (measured)", "θ", deg, "°", "User input"));
+  }
+  steps.push(
+    step("Vertical part of the axial force at the base V = N·cos θ", "V", N * Math.cos(theta), "N", "Statics"),
+    step("Horizontal part of the axial force at the base H = N·sin θ", "H", N * Math.sin(theta), "N", "Statics"),
+  );
+  return { ok: true, given: true, thetaRad: theta, steps };
+}
+
 export function runBaseBearing(req: CalculationRequest): MethodOutcome {
   const errors: FieldError[] = [];
   if (req.loadN === undefined) errors.push(fieldError("loadN", "Give the load on the base in N."));
@@ -64,12 +113,14 @@ export function runBaseBearing(req: CalculationRequest): MethodOutcome {
     errors.push(fieldError("allowablePressureKPa", "Give the allowable bearing pressure in kPa, or choose the ground type, or give the slab below for a back-prop."));
   }
   if (onSlab && req.fckMpa === undefined) errors.push(fieldError("fckMpa", "Give the strength of the slab's concrete (f_ck, or f'c for ACI 318) in MPa."));
-  if (errors.length || req.loadN === undefined || req.basePlateBMm === undefined || req.basePlateLMm === undefined) return { ok: false, errors };
+  const lean = leanOf(req);
+  if (!lean.ok) errors.push(...lean.errors);
+  if (errors.length || !lean.ok || req.loadN === undefined || req.basePlateBMm === undefined || req.basePlateLMm === undefined) return { ok: false, errors };
   const N = req.loadN;
   const a = req.basePlateBMm;
   const b = req.basePlateLMm;
   const steps: Step[] = [
-    step("Load on the base", "N", N, "N", "User input"),
+    step(req.outOfPlumbDeg !== undefined || req.outOfPlumbMm !== undefined ? "Axial force of the prop on its base" : "Load on the base", "N", N, "N", "User input"),
     step("Base plate", "a × b", `${fmt(a)} × ${fmt(b)}`, "mm", "User input"),
   ];
   const warnings: string[] = [];
@@ -100,7 +151,17 @@ export function runBaseBearing(req: CalculationRequest): MethodOutcome {
   }
   const area = bearA * bearB;
   const pressureKPa = (N / area) * 1000; // N/mm² = MPa → ×1000 kPa
-  steps.push(step("Bearing area", "A", area, "mm²", "Geometry"), step("Bearing pressure q = N/A", "q", pressureKPa, "kPa", { source: "Statics", note: "uniform pressure, concentric load" }));
+  steps.push(...lean.steps);
+  steps.push(
+    step("Bearing area", "A", area, "mm²", "Geometry"),
+    step(
+      lean.given ? "Bearing pressure q = N/A, with the whole axial force N (on the safe side of its vertical part N·cos θ)" : "Bearing pressure q = N/A",
+      "q",
+      pressureKPa,
+      "kPa",
+      { source: "Statics", note: lean.given ? "uniform pressure; the lean's horizontal part is taken by the base fixing or friction" : "uniform pressure, concentric load" },
+    ),
+  );
 
   if (req.allowablePressureKPa !== undefined || req.soil !== undefined) {
     let allow: number;
@@ -186,11 +247,41 @@ export function runBaseBearing(req: CalculationRequest): MethodOutcome {
   const governing = checks[gi];
   const capacityN = capacities[gi];
   steps.push(step(`Load at which the governing check (${governing.name}) reaches 1`, "N_max", capacityN, "N", governing.source));
+  let utilisation: number | undefined;
+  if (lean.given && lean.thetaRad > 0) {
+    const vertical = N * Math.cos(lean.thetaRad);
+    const horizontal = N * Math.sin(lean.thetaRad);
+    const tanTheta = Math.tan(lean.thetaRad);
+    if (req.frictionCoefficient !== undefined) {
+      const mu = req.frictionCoefficient;
+      const sliding = tanTheta / mu;
+      steps.push(
+        step("Friction coefficient between the base and what it stands on (given)", "μ", mu, "", "User input"),
+        step("Friction resistance μ·V", "μ·V", mu * vertical, "N", { source: "Statics", note: "Coulomb friction, no factor of safety" }),
+        step("Sliding ratio H/(μ·V) = tan θ/μ, the same at every load", "H/(μ·V)", sliding, "", "Statics"),
+      );
+      checks.push({ name: "Sliding of the base on friction", demand: horizontal, resistance: mu * vertical, unit: "N", utilisation: sliding, source: "Statics" });
+      utilisation = Math.max(N / capacityN, sliding);
+      if (sliding > 1) {
+        warnings.push(
+          `At ${fmt((lean.thetaRad * 180) / Math.PI)}° out of plumb the base would slide on friction alone (tan θ = ${fmt(tanTheta)} is more than the friction coefficient ${fmt(mu)}) whatever the load: fix the base against sliding or re-plumb the prop.`,
+        );
+      }
+      warnings.push(
+        `The base must resist a horizontal force H = ${fmt(horizontal / 1000)} kN (N·sin θ) by its fixing or by friction; friction was checked with the coefficient you gave and no factor of safety, which a temporary works designer should confirm.`,
+      );
+    } else {
+      warnings.push(
+        `The base must resist a horizontal force H = ${fmt(horizontal / 1000)} kN (N·sin θ) by its fixing (pins, bolts, a cleat or a kicker) or by friction. Friction is not checked: give the friction coefficient between the base and what it stands on to check it, or fix the base.`,
+      );
+    }
+  }
   return {
     ok: true,
     value: {
       basis: "bearing-resistance",
       capacityN,
+      ...(utilisation !== undefined ? { utilisation } : {}),
       loadBasis: onSlab
         ? "The load is the design load on the slab (EN 1992-1-1: ULS N_Ed; ACI 318: factored V_u); the capacity is the load at which the governing check reaches 1."
         : "Working (unfactored) load compared with the allowable bearing pressure; the capacity is the load at which the pressure reaches it.",

@@ -1,9 +1,16 @@
 // Axial force plus bending about the weaker axis for a steel member, used by the
 // out-of-plumb / eccentric load check and by raking shores. Two codes:
-//  - EN 1993-1-1 §6.3.3 (6.61) in a simplified form on the safe side:
-//    N_Ed/(χ·N_Rk/γM1) + k·M_Ed/(M_Rk/γM1) ≤ 1 with k = 1/(1 − N_Ed/N_cr)
-//    (C_m = 1.0, elastic section modulus, χ_LT = 1 for the closed and solid
-//    sections this engine knows);
+//  - EN 1993-1-1 §6.3.3 (6.61)/(6.62) with the interaction factors of Annex A
+//    for a Class 3 (elastic) cross-section: bending about the weaker axis z,
+//    N_Ed/(χ_z·N_Rk/γM1) + k_zz·M_Ed/(M_Rk/γM1) ≤ 1 and
+//    N_Ed/(χ_y·N_Rk/γM1) + k_yz·M_Ed/(M_Rk/γM1) ≤ 1, with
+//    k_zz = C_mz·μ_z/(1 − N_Ed/N_cr,z), k_yz = C_mz·μ_y/(1 − N_Ed/N_cr,z),
+//    μ_i = (1 − N_Ed/N_cr,i)/(1 − χ_i·N_Ed/N_cr,i), C_mLT = 1 and χ_LT = 1 for
+//    the closed and solid sections this engine knows, and C_mz,0 from Annex A
+//    Table A.2 (end moments with ψ = 1, or the general row for a member with
+//    transverse load). A member whose end may sway keeps C_m = 1.0. The
+//    elastic modulus is used for every class, which is on the safe side for
+//    Class 1 and 2 sections;
 //  - AISC 360-16 §H1.1 (H1-1a/b) with M_r amplified by B1 = C_m/(1 − αP_r/P_e1)
 //    (Appendix 8 (A-8-3)), C_m = 1.0, α = 1.0 LRFD / 1.6 ASD, and the elastic
 //    moment F_y·S (on the safe side of F_y·Z for compact sections).
@@ -97,36 +104,79 @@ export function combinedSteel(req: CalculationRequest, input: CombinedInput, lab
     const gammaM1 = req.gammaM1 ?? 1.0;
     const ncr = eulerLoad(e, props.iMinMm4, eff.effectiveLengthMm);
     const npl = props.areaMm2 * fy;
+    const alpha = IMPERFECTION_FACTORS[curve.curve];
     const lambdaBar = Math.sqrt(npl / ncr);
-    const chi = en1993Chi(lambdaBar, IMPERFECTION_FACTORS[curve.curve]);
+    const chi = en1993Chi(lambdaBar, alpha);
     const nbrd = (chi * npl) / gammaM1;
+    // The stiffer axis y (the same for a tube or a round bar): buckling about it with the weak-axis moment, Eq. 6.61.
+    const iMax = props.iMaxMm4 ?? props.iMinMm4;
+    const ncrY = eulerLoad(e, iMax, eff.effectiveLengthMm);
+    const chiY = en1993Chi(Math.sqrt(npl / ncrY), alpha);
+    const nbrdY = (chiY * npl) / gammaM1;
+    const twoAxes = iMax > props.iMinMm4 * (1 + 1e-9);
     const mrd = (wel * fy) / gammaM1;
     warnings.push(...eff.warnings, ...curve.warnings);
     if (n >= ncr) {
       return { ok: false, errors: [fieldError("loadN", `The axial force ${fmt(n)} N reaches the elastic critical load N_cr = ${fmt(ncr)} N: the member would buckle whatever the moment.`)] };
     }
-    const amp = 1 / (1 - n / ncr);
-    const med = m0 * amp;
+    const sway = req.ends === "fixed-free" || req.ends === "fixed-sway" || req.ends === "pinned-sway";
+    const endMomentsOnly = input.fixedMomentNmm === 0;
+    /** EN 1993-1-1 Annex A Table A.2: C_mz,0 for uniform end moments (ψ = 1) or, with self-weight, the row for transverse load. */
+    const cm0 = (x: number): number => {
+      if (sway) return 1;
+      const r = x / ncr;
+      if (endMomentsOnly) return 0.79 + 0.21 * 1 + 0.36 * (1 - 0.33) * r;
+      const me = x * input.leverMm;
+      const total = me + input.fixedMomentNmm;
+      // π²EI·δ/(L²·M) for a pin-ended span: uniform moment M_e gives δ = M_e·L²/(8EI), self-weight M_w = wL²/8 gives δ = 5M_w·L²/(48EI).
+      const shape = (Math.PI * Math.PI * (me / 8 + (5 * input.fixedMomentNmm) / 48)) / total;
+      return 1 + (shape - 1) * r;
+    };
+    const mu = (x: number, ncrI: number, chiI: number) => (1 - x / ncrI) / (1 - (chiI * x) / ncrI);
+    const kzz = (x: number) => (cm0(x) * mu(x, ncr, chi)) / (1 - x / ncr);
+    const kyz = (x: number) => (cm0(x) * mu(x, ncrY, chiY)) / (1 - x / ncr);
+    const eq62 = (x: number) => x / nbrd + (kzz(x) * moment(x)) / mrd;
+    const eq61 = (x: number) => x / nbrdY + (kyz(x) * moment(x)) / mrd;
+    const cm = cm0(n);
+    const muZ = mu(n, ncr, chi);
+    const k = kzz(n);
+    const med = k * m0;
     const uN = n / nbrd;
     const uM = med / mrd;
-    const u = uN + uM;
-    // Largest N with the same eccentricity ratio M/N: solve N/Nb + (N·e)/(Mrd(1 − N/Ncr)) = 1 by bisection.
-    const capacity = solveCapacity((x) => x / nbrd + moment(x) / (mrd * (1 - x / ncr)), Math.min(nbrd, ncr));
+    const u62 = eq62(n);
+    const u61 = eq61(n);
+    const u = twoAxes ? Math.max(u61, u62) : u62;
+    // Largest N with the same lever arm and self-weight moment at which the interaction reaches 1 (bisection).
+    const capacity = solveCapacity((x) => (twoAxes ? Math.max(eq61(x), eq62(x)) : eq62(x)), Math.min(nbrd, ncr));
+    const ANNEX_A = { source: "EN 1993-1-1 Annex A Table A.1", note: "Class 3 column, C_mLT = 1 for a closed or solid section" };
+    const TABLE_A2 = { source: "EN 1993-1-1 Annex A Table A.2", toConfirm: "value to be confirmed against EN 1993-1-1 Annex A Table A.2" };
     steps.push(
       ...cls.steps,
       ...eff.steps,
       ...curve.steps,
-      step("Elastic critical load N_cr = π²·E·I_min/L_cr²", "N_cr", ncr, "N", EULER_SOURCE),
+      step("Elastic critical load about the weaker axis N_cr,z = π²·E·I_min/L_cr²", "N_cr", ncr, "N", EULER_SOURCE),
       step("Non-dimensional slenderness λ̄ = √(A·fy/N_cr)", "λ̄", lambdaBar, "", "EN 1993-1-1 §6.3.1.3 Eq. 6.50"),
-      step("Reduction factor χ", "χ", chi, "", "EN 1993-1-1 §6.3.1.2 Eq. 6.49"),
-      step("Buckling resistance χ·A·fy/γM1", "N_b,Rd", nbrd, "N", "EN 1993-1-1 §6.3.1.1 Eq. 6.47"),
+      step("Reduction factor χ_z", "χ", chi, "", "EN 1993-1-1 §6.3.1.2 Eq. 6.49"),
+      step("Buckling resistance χ_z·A·fy/γM1", "N_b,Rd", nbrd, "N", "EN 1993-1-1 §6.3.1.1 Eq. 6.47"),
       step("Bending resistance W_el·fy/γM1 (elastic, on the safe side)", "M_Rd", mrd, "N·mm", "EN 1993-1-1 §6.2.5 Eq. 6.14"),
       step("Axial force", "N_Ed", n, "N", { source: "Statics", note: "from the load and geometry above" }),
-      step("First-order moment", "M_Ed,1", m0, "N·mm", { source: "Statics", note: "from the load and geometry above" }),
-      step("Second-order amplification 1/(1 − N_Ed/N_cr)", "k", amp, "", { source: "EN 1993-1-1 §5.2.2(5) and Annex A", note: "C_m = 1.0" }),
-      step("Amplified moment M_Ed = k·M_Ed,1", "M_Ed", med, "N·mm", "EN 1993-1-1 §6.3.3"),
-      step("Interaction N_Ed/N_b,Rd + M_Ed/M_Rd ≤ 1", "Σ", u, "", { source: "EN 1993-1-1 §6.3.3 Eq. 6.61", note: "simplified" }),
-      step("Axial force at which the interaction reaches 1 (same lever arm and self-weight moment)", "N_max", capacity, "N", { source: "EN 1993-1-1 §6.3.3 Eq. 6.61", note: "simplified" }),
+      step("First-order moment, largest along the member", "M_Ed", m0, "N·mm", { source: "Statics", note: "from the load and geometry above" }),
+      sway
+        ? step("Equivalent uniform moment factor, an end free to sway", "C_mz", cm, "", { source: "Common practice", note: "1.0 kept for a sway mode" })
+        : endMomentsOnly
+          ? step("Equivalent uniform moment factor, equal end moments ψ = 1: C_mz,0 = 0.79 + 0.21ψ + 0.36(ψ − 0.33)·N_Ed/N_cr,z", "C_mz", cm, "", TABLE_A2)
+          : step("Equivalent uniform moment factor with transverse load: C_mz,0 = 1 + (π²EI·δ/(L²·M) − 1)·N_Ed/N_cr,z", "C_mz", cm, "", TABLE_A2),
+      step("μ_z = (1 − N_Ed/N_cr,z)/(1 − χ_z·N_Ed/N_cr,z)", "μ_z", muZ, "", ANNEX_A),
+      step("Interaction factor k_zz = C_mz·μ_z/(1 − N_Ed/N_cr,z)", "k_zz", k, "", ANNEX_A),
+      step("Interaction, buckling about the weaker axis N_Ed/N_b,z,Rd + k_zz·M_Ed/M_Rd ≤ 1", "Σ", u62, "", "EN 1993-1-1 §6.3.3 Eq. 6.62"),
+      ...(twoAxes
+        ? [
+            step("Buckling resistance about the stiffer axis χ_y·A·fy/γM1", "N_b,y,Rd", nbrdY, "N", "EN 1993-1-1 §6.3.1.1 Eq. 6.47"),
+            step("Interaction factor k_yz = C_mz·μ_y/(1 − N_Ed/N_cr,z), μ_y = (1 − N_Ed/N_cr,y)/(1 − χ_y·N_Ed/N_cr,y)", "k_yz", kyz(n), "", ANNEX_A),
+            step("Interaction, buckling about the stiffer axis N_Ed/N_b,y,Rd + k_yz·M_Ed/M_Rd ≤ 1", "Σ_y", u61, "", "EN 1993-1-1 §6.3.3 Eq. 6.61"),
+          ]
+        : []),
+      step("Axial force at which the interaction reaches 1 (same lever arm and self-weight moment)", "N_max", capacity, "N", "EN 1993-1-1 §6.3.3 Eq. 6.61/6.62"),
     );
     return {
       ok: true,
@@ -135,8 +185,8 @@ export function combinedSteel(req: CalculationRequest, input: CombinedInput, lab
       utilisation: u,
       checks: [
         { name: "Axial buckling N_Ed/N_b,Rd", demand: n, resistance: nbrd, unit: "N", utilisation: uN, source: "EN 1993-1-1 §6.3.1" },
-        { name: "Bending M_Ed/M_Rd (amplified)", demand: med, resistance: mrd, unit: "N·mm", utilisation: uM, source: "EN 1993-1-1 §6.2.5" },
-        { name: "Combined N + M", demand: u, resistance: 1, unit: "", utilisation: u, source: "EN 1993-1-1 §6.3.3 Eq. 6.61" },
+        { name: "Bending k_zz·M_Ed/M_Rd", demand: med, resistance: mrd, unit: "N·mm", utilisation: uM, source: "EN 1993-1-1 §6.2.5" },
+        { name: "Combined N + M", demand: u, resistance: 1, unit: "", utilisation: u, source: twoAxes && u61 > u62 ? "EN 1993-1-1 §6.3.3 Eq. 6.61" : "EN 1993-1-1 §6.3.3 Eq. 6.62" },
       ],
       steps,
       warnings,

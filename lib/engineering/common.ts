@@ -90,7 +90,9 @@ export function resolveSteelFy(
   const isRound = req.section?.shape === "chs" || req.section?.shape === "round";
   let fy = isRound && grade.fyRoundMpa !== undefined ? grade.fyRoundMpa : grade.fyMpa;
   let label = `Yield strength for ${grade.label}${isRound && grade.fyRoundMpa !== undefined ? " (round)" : ""}`;
-  const t = props.thicknessMm;
+  // The product standard's thickness steps refer to the nominal wall, not AISC's design wall 0.93t.
+  const nominal = req.section?.shape === "chs" || req.section?.shape === "rhs" ? req.section.tMm : undefined;
+  const t = nominal ?? props.thicknessMm;
   const fromProduct = (req.fyFrom ?? "product-standard") === "product-standard" && grade.productBands !== undefined && t !== undefined;
   if (fromProduct && grade.productBands && t !== undefined) {
     const band = grade.productBands.find(([tMax]) => t <= tMax);

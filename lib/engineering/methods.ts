@@ -126,10 +126,10 @@ export const CHECK_METHODS: readonly MethodInfo<CheckMethodId>[] = [
   {
     id: "base-bearing",
     label: "Bearing under the base",
-    description: "Pressure under a base plate or timber sole plate against an allowable bearing pressure, and punching of the slab below a back-prop (EN 1992-1-1 §6.4 or ACI 318-19 §22.6).",
+    description: "Pressure under a base plate or timber sole plate against an allowable bearing pressure, and punching of the slab below a back-prop (EN 1992-1-1 §6.4 or ACI 318-19 §22.6); for a prop out of plumb, the horizontal force its base must resist (and sliding, given a friction coefficient).",
     basis: "bearing-resistance",
     required: ["loadN", "basePlateBMm", "basePlateLMm", "allowablePressureKPa|soil|slabDepthMm+fckMpa"],
-    optional: ["solePlateBMm", "solePlateLMm", "solePlateTMm", "slabEffectiveDepthMm", "rhoL", "punchingCode"],
+    optional: ["solePlateBMm", "solePlateLMm", "solePlateTMm", "slabEffectiveDepthMm", "rhoL", "punchingCode", "outOfPlumbDeg", "outOfPlumbMm", "lengthMm", "frictionCoefficient"],
     sectionShapes: [],
     lengthDependent: false,
   },

@@ -3,9 +3,9 @@
 // Steel member (section + fy): the load is taken vertical, so the axial force
 // is N/cos θ and each end must be held sideways by H = N·tan θ. Bending comes
 // from the load's eccentricity at the end plates; if an end is free to sway,
-// the offset Δ of the head over the base adds to it. The moment is amplified
-// by 1/(1 − N/N_cr) and checked with the axial force (EN 1993-1-1 §6.3.3 or
-// AISC 360-16 §H1.1, see combined.ts).
+// the offset Δ of the head over the base adds to it. The moment is checked
+// with the axial force (EN 1993-1-1 §6.3.3 with the Annex A interaction
+// factors, or AISC 360-16 §H1.1 with B1 = 1/(1 − αP_r/P_e1), see combined.ts).
 //
 // EN 1065 prop (propClass): the class strength assumes a plumb prop loaded
 // centrally through its end plates. A prop out of plumb by more than the

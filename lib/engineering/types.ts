@@ -195,6 +195,8 @@ export interface CalculationRequest {
   solePlateLMm?: number;
   solePlateTMm?: number;
   allowablePressureKPa?: number;
+  /** Friction coefficient between a base and what it stands on, for the sliding of a leaning prop's base. */
+  frictionCoefficient?: number;
   soil?: SoilId;
   slabDepthMm?: number;
   slabEffectiveDepthMm?: number;

@@ -49,3 +49,28 @@ test("bearing under a base plate in US units names a missing field", async ({ pa
   await expect(page.getByTestId("checks")).toContainText("Bearing pressure on the ground");
   await expect(page.getByTestId("verdict")).toContainText("FAIL");
 });
+
+test("the base of a leaning prop: the horizontal force in the working, and sliding with a friction coefficient typed", async ({ page }) => {
+  await signIn(page, "designer@demo.example");
+  await openSite(page, WHARF);
+  await page.goto(`${new URL(page.url()).pathname}/calculator`);
+  await page.getByLabel("Method").selectOption("base-bearing");
+  await expect(page.getByRole("note", { name: "Caution" })).toBeVisible();
+  await page.getByLabel(/^Base plate width/).fill("150");
+  await page.getByLabel(/^Base plate length/).fill("150");
+  await page.getByLabel(/^Allowable bearing pressure/).fill("100");
+  await page.getByLabel(/^Load to compare/).fill("1");
+  // An offset with no length is refused on the length, in words.
+  await page.getByLabel(/^Prop out of plumb, offset/).fill("105");
+  await page.getByRole("button", { name: "Calculate" }).click();
+  await expect(page.locator("#length-error")).toContainText(/prop's length/);
+  // 20° out with μ = 0.3: tan 20° = 0.364 > 0.3, so the base slides on friction alone whatever the load (statics).
+  await page.getByLabel(/^Prop out of plumb, offset/).fill("");
+  await page.getByLabel(/^Prop out of plumb, angle/).fill("20");
+  await page.getByLabel(/^Friction coefficient/).fill("0.3");
+  await page.getByRole("button", { name: "Calculate" }).click();
+  await expect(page.getByTestId("checks")).toContainText("Sliding of the base on friction");
+  await expect(page.getByTestId("verdict")).toContainText("FAIL");
+  await expect(page.getByRole("table", { name: "Working" })).toContainText("H = N·sin θ");
+  await expect(page.getByText(/would slide on friction alone/)).toBeVisible();
+});

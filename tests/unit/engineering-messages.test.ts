@@ -9,7 +9,7 @@ const KEYS = [
   "timberType", "fcStarMpa", "eMinMpa", "propClass", "maxExtensionMm", "minExtensionMm", "designBasis", "loadN", "fyFrom", "hssWeld",
   "duringConstruction", "supplierInterpolation", "outOfPlumbDeg", "outOfPlumbMm", "eccentricityMm", "plumbCode", "basePlateBMm",
   "allowablePressureKPa", "slabDepthMm", "slabEffectiveDepthMm", "fckMpa", "punchingCode", "shoredLevels", "slabSelfWeightKPa",
-  "angleDeg", "selfWeightNPerM", "safeLoadN", "dMm", "tMm", "areaMm2", "iMinMm4",
+  "angleDeg", "selfWeightNPerM", "frictionCoefficient", "safeLoadN", "dMm", "tMm", "areaMm2", "iMinMm4",
 ];
 const CODE_WORD = new RegExp(`\\b(${KEYS.join("|")})\\b|\\([a-z]+[A-Z]\\w*\\)`);
 /** Any camelCase word (thrustN, slabThicknessMm, concreteAsPermanent…); kN, kPa and kNm are units, not code. */
@@ -64,7 +64,7 @@ describe("every validate path speaks words, not request keys (issue #16)", () =>
   const FIELDS = [...Object.keys(BASE), "k", "ends", "eMpa", "fyMpa", "formed", "curve", "gammaM1", "fc0kMpa", "e005Mpa", "kmod", "serviceClass", "loadDuration",
     "gammaM", "betaC", "timberType", "c", "minExtensionMm", "gammaF", "designBasis", "fyFrom", "hssWeld", "duringConstruction", "supplierInterpolation",
     "outOfPlumbMm", "eccentricityMm", "plumbCode", "solePlateBMm", "solePlateLMm", "solePlateTMm", "soil", "slabDepthMm", "slabEffectiveDepthMm", "fckMpa",
-    "rhoL", "punchingCode", "formworkKPa", "constructionKPa", "cycles", "selfWeightNPerM"];
+    "rhoL", "punchingCode", "formworkKPa", "constructionKPa", "cycles", "selfWeightNPerM", "frictionCoefficient"];
 
   it.each(ALL_METHOD_IDS)("%s: each field given a wrong value is refused or warned about in words", (method) => {
     const offenders = new Set<string>();

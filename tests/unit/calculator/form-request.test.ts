@@ -69,6 +69,21 @@ describe("formToRequest for the checks around a member", () => {
     expect(calculate(request).ok).toBe(true);
   });
 
+  it("base bearing under a leaning prop in US units: the offset in inches over a length in feet, and a friction coefficient", () => {
+    // 4 in = 101.6 mm; 10 ft = 3048 mm (NIST SP 811: 1 in = 25.4 mm, 1 ft = 0.3048 m exactly).
+    const { request, fieldErrors } = formToRequest(
+      form({ method: "base-bearing", units: "us", length: "10'", plumbOffset: "4", friction: "0.4", basePlateB: "6", basePlateL: "6", allowablePressure: "2000", load: "5" }),
+    );
+    expect(fieldErrors).toEqual({});
+    expect(request.outOfPlumbMm).toBeCloseTo(101.6, 9);
+    expect(request.lengthMm).toBeCloseTo(3048, 9);
+    expect(request.frictionCoefficient).toBe(0.4);
+    const r = calculate(request);
+    // sin θ = 101.6/3048 = 1/30: H = 5 kip/30 = 0.1667 kip = 741.4 N
+    expect(r.ok && r.steps.find((s) => s.symbol === "H")?.value).toBeCloseTo((5 * 4448.222) / 30, 0);
+    expect(fieldForPath("frictionCoefficient")).toBe("friction");
+  });
+
   it("back-propping sequence: levels and slab weight, no length and no load", () => {
     const { request, fieldErrors } = formToRequest(form({ method: "backprop-sequence", length: "", shoredLevels: "3", slabSelfWeight: "6", load: "12" }));
     expect(fieldErrors).toEqual({});

@@ -25,7 +25,7 @@ describe("result contract", () => {
     const r = ok(calculate(requests[m]));
     expect(r.method).toBe(m);
     expect(r.engineVersion).toBe(ENGINE_VERSION);
-    expect(ENGINE_VERSION).toBe("1.1.0"); // 1.1.0: the corrections of issue 10 (supplier tables in 1/L², RHS corner radii, AISC design wall, safe defaults)
+    expect(ENGINE_VERSION).toBe("1.2.0"); // 1.1.0: the corrections of issue 10 (supplier tables in 1/L², RHS corner radii, AISC design wall, safe defaults); 1.2.0: the audit's fixes (lean at the base, f_y by nominal wall, EN 1993-1-1 Annex A k_yy)
     expect(r.capacityN).toBeGreaterThan(0);
     expect(["elastic-critical", "design-resistance", "available-strength", "allowable-strength", "safe-working-load"]).toContain(r.basis);
     expect(r.basis).toBe(METHODS.find((x) => x.id === m)?.basis);

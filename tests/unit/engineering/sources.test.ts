@@ -30,6 +30,7 @@ const SAMPLES: Record<string, unknown>[] = [
   { method: "out-of-plumb", lengthMm: 3000, loadN: 10000, outOfPlumbDeg: 2, eccentricityMm: 10, section: chs, steelGrade: "S355", plumbCode: "aisc360" },
   { method: "base-bearing", loadN: 20000, basePlateBMm: 150, basePlateLMm: 150, soil: "firm-clay", solePlateBMm: 225, solePlateLMm: 450, solePlateTMm: 50 },
   { method: "base-bearing", loadN: 20000, basePlateBMm: 150, basePlateLMm: 150, soil: "hardcore" },
+  { method: "base-bearing", loadN: 20000, basePlateBMm: 150, basePlateLMm: 150, soil: "dense-gravel", outOfPlumbMm: 80, lengthMm: 3000, frictionCoefficient: 0.4 },
   { method: "base-bearing", loadN: 20000, basePlateBMm: 150, basePlateLMm: 150, slabDepthMm: 200, fckMpa: 30 },
   { method: "base-bearing", loadN: 20000, basePlateBMm: 150, basePlateLMm: 150, slabDepthMm: 200, fckMpa: 30, punchingCode: "aci318" },
   { method: "backprop-sequence", shoredLevels: 2, slabSelfWeightKPa: 5 },

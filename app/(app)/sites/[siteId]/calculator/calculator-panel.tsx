@@ -331,6 +331,10 @@ export function CalculatorPanel({ siteId, defaultUnits, defaultDesignCode }: Pro
                 <option value="aci318">ACI 318-19 §22.6</option>
               </select>
             </Field>
+            <Text id="plumbDeg" label="Prop out of plumb, angle (degrees, optional)" reg={register} error={errors.plumbDeg?.message} hint="The horizontal force at the base is worked out from the lean. Or give the offset below." />
+            <Text id="plumbOffset" label={`Prop out of plumb, offset of head over base (${u.dim}, optional)`} reg={register} error={errors.plumbOffset?.message} />
+            <Text id="length" label={`Prop length, for the offset (${u.length})`} reg={register} error={errors.length?.message} />
+            <Text id="friction" label="Friction coefficient at the base (optional)" reg={register} error={errors.friction?.message} hint="Checks sliding of a leaning prop's base; none is assumed." />
           </>
         ) : null}
         {method === "backprop-sequence" ? (
